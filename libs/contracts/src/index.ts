@@ -1,0 +1,3 @@
+export * from './web';
+export * from './option';
+export * from './issues';

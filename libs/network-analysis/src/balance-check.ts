@@ -1,0 +1,81 @@
+import type { Network } from './network';
+import { WebError } from './web-error';
+
+/**
+ * Balance (METHODS.md §0): inputs z_j + Σ_i T_ij equal outputs e_j + r_j + Σ_k T_jk for every
+ * compartment within a relative tolerance (1e-6 of T_j by contract).
+ */
+
+export const BALANCE_TOLERANCE = 1e-6;
+
+export interface Imbalance {
+  readonly id: string;
+  readonly inputs: number;
+  readonly outputs: number;
+  /** inputs − outputs */
+  readonly imbalance: number;
+}
+
+export function imbalances(network: Network, tolerance = BALANCE_TOLERANCE): Imbalance[] {
+  const found: Imbalance[] = [];
+  for (let j = 0; j < network.n; j++) {
+    const inputs = network.throughflow[j];
+    const outputs = network.outflow[j];
+    const scale = Math.max(Math.abs(inputs), Math.abs(outputs));
+    if (Math.abs(inputs - outputs) > tolerance * scale) {
+      found.push({ id: network.ids[j], inputs, outputs, imbalance: inputs - outputs });
+    }
+  }
+  return found;
+}
+
+export function isBalanced(network: Network, tolerance = BALANCE_TOLERANCE): boolean {
+  return imbalances(network, tolerance).length === 0;
+}
+
+/**
+ * Every analysis but the information indices needs a balanced web whose compartments all reach an
+ * exit (export or respiration); otherwise I − G is singular. Throws WebError naming each one.
+ */
+export function requireAnalysable(network: Network): void {
+  const unbalanced = imbalances(network);
+  if (unbalanced.length > 0) {
+    throw new WebError(
+      'unbalanced',
+      unbalanced.map(
+        (u) =>
+          `compartment "${u.id}" is unbalanced: inputs ${u.inputs} and outputs ${u.outputs} differ by ${u.imbalance} (balance the web first)`,
+      ),
+    );
+  }
+  const trapped = compartmentsWithoutExit(network);
+  if (trapped.length > 0) {
+    throw new WebError(
+      'closed',
+      [`no path to an export or respiration from ${trapped.map((id) => `"${id}"`).join(', ')}: material would circulate forever`],
+    );
+  }
+}
+
+/** Compartments with throughflow that cannot reach any export or respiration along positive flows. */
+export function compartmentsWithoutExit(network: Network): string[] {
+  const { n, T, e, r, throughflow } = network;
+  const reaches = new Array<boolean>(n).fill(false);
+  const stack: number[] = [];
+  for (let i = 0; i < n; i++) {
+    if (e[i] + r[i] > 0) {
+      reaches[i] = true;
+      stack.push(i);
+    }
+  }
+  while (stack.length > 0) {
+    const j = stack.pop()!;
+    for (let i = 0; i < n; i++) {
+      if (!reaches[i] && T[i][j] > 0) {
+        reaches[i] = true;
+        stack.push(i);
+      }
+    }
+  }
+  return network.ids.filter((_, i) => !reaches[i] && throughflow[i] > 0);
+}

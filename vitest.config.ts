@@ -1,0 +1,11 @@
+import { defineConfig } from 'vitest/config';
+
+// Engine, CLI and server tests. The Angular app's specs run through `ng test` (its own builder).
+export default defineConfig({
+  resolve: { tsconfigPaths: true },
+  test: {
+    globals: true,
+    include: ['libs/**/*.spec.ts', 'apps/server/**/*.spec.ts', 'tests/**/*.spec.ts'],
+    testTimeout: 30_000,
+  },
+});
