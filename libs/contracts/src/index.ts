@@ -1,3 +1,4 @@
 export * from './web';
 export * from './option';
 export * from './issues';
+export * from './analysis';

@@ -1,0 +1,61 @@
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { resolve } from 'node:path';
+import cone from '../../../tests/fixtures/cone-spring.json';
+import { createApp } from './app';
+
+let server: Server;
+let base: string;
+
+beforeAll(async () => {
+  const app = await createApp({ demoWebPath: resolve(import.meta.dirname, '../../../seeds/brannock-bay.json') });
+  server = app.listen(0, '127.0.0.1');
+  await new Promise((ready) => server.once('listening', ready));
+  base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+});
+afterAll(() => new Promise((done) => server.close(done)));
+
+const post = (path: string, body: string, headers: Record<string, string> = {}) =>
+  fetch(`${base}${path}`, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body });
+
+describe('server', () => {
+  it('serves the analysed demo baseline', async () => {
+    const response = await fetch(`${base}/api/demo/baseline`);
+    expect(response.status).toBe(200);
+    const body = await response.json();
+    expect(body.compartments.length).toBeGreaterThan(10);
+    expect(body.analysis.relativeAscendency).toBeGreaterThan(0);
+  });
+
+  it('analyses a posted web', async () => {
+    const response = await post('/api/analyses', JSON.stringify(cone));
+    expect(response.status).toBe(200);
+    expect((await response.json()).tst).toBeCloseTo(42445, 6);
+  });
+
+  it('answers 400 to a body that is not JSON', async () => {
+    const response = await post('/api/analyses', '{"name": ');
+    expect(response.status).toBe(400);
+    expect((await response.json()).error).toBe('The request body is not valid JSON');
+  });
+
+  it('answers 422 naming each problem of an invalid or unbalanced web', async () => {
+    const invalid = await post('/api/analyses', JSON.stringify({ ...cone, flows: [{ from: 'plants', to: 'fish', value: -1 }] }));
+    expect(invalid.status).toBe(422);
+    expect((await invalid.json()).problems).toEqual(['flows[0].value: flow value must not be negative']);
+    const unbalanced = await post('/api/analyses', JSON.stringify({ ...cone, imports: [{ to: 'plants', value: 1 }] }));
+    expect(unbalanced.status).toBe(422);
+    expect((await unbalanced.json()).problems.join(' ')).toMatch(/"plants" is unbalanced/);
+  });
+
+  it('refuses state-changing requests from another site', async () => {
+    const response = await post('/api/analyses', JSON.stringify(cone), { origin: 'https://elsewhere.example' });
+    expect(response.status).toBe(403);
+  });
+
+  it('answers 404 with a message for an unknown API route', async () => {
+    const response = await fetch(`${base}/api/nothing-here`);
+    expect(response.status).toBe(404);
+    expect((await response.json()).error).toMatch(/No such API route/);
+  });
+});

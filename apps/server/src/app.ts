@@ -1,0 +1,34 @@
+import express, { type Express } from 'express';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { demoRoutes } from './demo/demo-routes';
+import { analysisRoutes } from './http/analysis-routes';
+import { errorHandler, RequestError } from './http/errors';
+import { originCheck } from './http/origin-check';
+
+export interface AppSettings {
+  /** WEB.json of the demo baseline. */
+  readonly demoWebPath: string;
+  /** Built browser app (dist/web/browser); omitted in API-only tests. */
+  readonly staticDir?: string;
+}
+
+export async function createApp(settings: AppSettings): Promise<Express> {
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(express.json({ limit: '5mb' }));
+  app.use('/api', originCheck());
+  app.get('/api/health', (_request, response) => {
+    response.json({ status: 'ok' });
+  });
+  app.use('/api/demo', await demoRoutes(settings.demoWebPath));
+  app.use('/api/analyses', analysisRoutes());
+  app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.path}`)));
+  if (settings.staticDir && existsSync(settings.staticDir)) {
+    const staticDir = settings.staticDir;
+    app.use(express.static(staticDir));
+    app.get('/{*splat}', (_request, response) => response.sendFile(join(staticDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

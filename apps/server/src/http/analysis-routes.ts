@@ -1,0 +1,11 @@
+import { Router } from 'express';
+import { analyzeWeb } from '@seinework/network-analysis';
+
+/** Stateless analysis of a web sent in the body (WEB.json); the engine validates and answers. */
+export function analysisRoutes(): Router {
+  const router = Router();
+  router.post('/', (request, response) => {
+    response.json(analyzeWeb(request.body));
+  });
+  return router;
+}

@@ -1,0 +1,40 @@
+import { ChangeDetectionStrategy, Component, OnInit, computed, inject } from '@angular/core';
+import { DecimalPipe, PercentPipe } from '@angular/common';
+import { MatCardModule } from '@angular/material/card';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTableModule } from '@angular/material/table';
+import { BaselineStore } from './baseline-store';
+
+/** First screen: the demo baseline's headline indicators and the trophic position of each compartment. */
+@Component({
+  selector: 'sw-baseline-overview',
+  imports: [MatCardModule, MatProgressBarModule, MatTableModule, DecimalPipe, PercentPipe],
+  providers: [BaselineStore],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './baseline-overview.html',
+  styleUrl: './baseline-overview.scss',
+})
+export class BaselineOverview implements OnInit {
+  protected readonly store = inject(BaselineStore);
+  protected readonly columns = ['name', 'kind', 'trophicLevel', 'cycled'];
+
+  protected readonly rows = computed(() => {
+    const baseline = this.store.baseline();
+    if (!baseline) return [];
+    const { analysis } = baseline;
+    return baseline.compartments
+      .map((c) => ({ ...c, trophicLevel: analysis.trophicLevels[c.id], cycled: analysis.cycledThroughflow[c.id] }))
+      .sort((a, b) => b.trophicLevel - a.trophicLevel);
+  });
+
+  protected readonly fitnessSide = computed(() => {
+    const side = this.store.baseline()?.analysis.fitness.side;
+    if (side === 'constraint') return 'more constraint than flexibility';
+    if (side === 'flexibility') return 'more flexibility than constraint';
+    return side === 'peak' ? 'at the peak' : '';
+  });
+
+  ngOnInit(): void {
+    this.store.loadDemo();
+  }
+}

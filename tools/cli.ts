@@ -1,0 +1,46 @@
+import { readFileSync } from 'node:fs';
+import { WebError } from '@seinework/network-analysis';
+
+/**
+ * What every command-line entry point shares (METHODS.md §11): read JSON files, print exactly one
+ * JSON document on success, and on bad input print one line on stderr and exit with code 2 —
+ * never a stack trace, never anything on stdout.
+ */
+
+export class InputError extends Error {}
+
+export function readJsonFile(path: string | undefined, what: string): unknown {
+  if (!path) throw new InputError(`missing ${what} file argument`);
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    throw new InputError(code === 'ENOENT' ? `${what} file not found: ${path}` : `cannot read ${what} file ${path} (${code ?? 'error'})`);
+  }
+  try {
+    return JSON.parse(text);
+  } catch (error) {
+    throw new InputError(`${what} file ${path} is not valid JSON: ${(error as Error).message}`);
+  }
+}
+
+/** Runs a command body; known input errors exit 2 with one line, anything else exits 1 with one line. */
+export async function runCommand(name: string, body: () => unknown | Promise<unknown>): Promise<void> {
+  try {
+    const result = await body();
+    process.stdout.write(`${JSON.stringify(result)}\n`);
+  } catch (error) {
+    if (error instanceof InputError || error instanceof WebError) {
+      process.stderr.write(`${name}: ${oneLine(error.message)}\n`);
+      process.exitCode = 2;
+    } else {
+      process.stderr.write(`${name}: internal error: ${oneLine(error instanceof Error ? error.message : String(error))}\n`);
+      process.exitCode = 1;
+    }
+  }
+}
+
+function oneLine(message: string): string {
+  return message.replace(/\s*\n\s*/g, '; ');
+}

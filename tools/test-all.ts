@@ -1,0 +1,62 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+/**
+ * `npm test`: every suite of the project, each run even when an earlier one failed, then one plain
+ * closing line `N passed, N failed` summing them all (CI reads it). A check that is not a test
+ * runner (typecheck, production build) counts as one test.
+ */
+
+interface Tally {
+  passed: number;
+  failed: number;
+}
+
+const bin = (name: string) => join('node_modules', '.bin', name);
+const reportDir = mkdtempSync(join(tmpdir(), 'seinework-tests-'));
+
+function run(label: string, command: string, args: string[]): { ok: boolean; output: string } {
+  console.log(`\n▶ ${label}`);
+  const result = spawnSync(command, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0' } });
+  const output = `${result.stdout ?? ''}${result.stderr ?? ''}`;
+  process.stdout.write(output);
+  return { ok: result.status === 0, output };
+}
+
+function check(label: string, command: string, args: string[]): Tally {
+  const { ok } = run(label, command, args);
+  return ok ? { passed: 1, failed: 0 } : { passed: 0, failed: 1 };
+}
+
+function vitestSuite(): Tally {
+  const report = join(reportDir, 'vitest.json');
+  const { ok } = run('engine, CLI and server tests (vitest)', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]);
+  try {
+    const json = JSON.parse(readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTestSuites: number; success: boolean };
+    // a file that fails to load has no failed test of its own: count the run as one more failure
+    return { passed: json.numPassedTests, failed: json.numFailedTests + (ok || json.numFailedTests > 0 ? 0 : 1) };
+  } catch {
+    return { passed: 0, failed: 1 };
+  }
+}
+
+function angularSuite(): Tally {
+  const { ok, output } = run('browser app tests (ng test)', bin('ng'), ['test', 'web', '--watch=false']);
+  const line = output.split('\n').find((l) => /^\s*Tests\s/.test(l)) ?? '';
+  const passed = Number(/(\d+) passed/.exec(line)?.[1] ?? 0);
+  const failed = Number(/(\d+) failed/.exec(line)?.[1] ?? 0);
+  return { passed, failed: failed + (ok || failed > 0 ? 0 : 1) };
+}
+
+const tallies: Tally[] = [
+  check('typecheck (libs, server, tools, tests)', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']),
+  check('production build of the browser app (template typecheck)', bin('ng'), ['build', 'web']),
+  vitestSuite(),
+  angularSuite(),
+];
+const passed = tallies.reduce((s, t) => s + t.passed, 0);
+const failed = tallies.reduce((s, t) => s + t.failed, 0);
+console.log(`\n${passed} passed, ${failed} failed`);
+process.exitCode = failed > 0 ? 1 : 0;
