@@ -1,0 +1,118 @@
+import { LuDecomposition, Matrix } from 'ml-matrix';
+import { OUTSIDE, WebError, withFluxValues, type Network } from '@seinework/network-analysis';
+import type { OptionPlan } from './option-web';
+
+/**
+ * Bottom-up (donor-controlled) response of METHODS.md §8 (Hannon 1973, J. theor. Biol. 41:535-546;
+ * Fath & Patten 1999, Ecosystems 2:167-179). Imports are fixed (scaled producers excepted); each
+ * compartment's non-harvest outputs (flows to other compartments, other exports, respiration) keep
+ * their baseline proportions φ_ik = value_k / N_i, N_i its baseline non-harvest output, and together
+ * take what its catches leave: with catch fractions c_i, x = (I − F'ᵀ)⁻¹ z where
+ * F'_ij = φ_ij (1 − c_i).
+ *
+ * "Iterated on the catch fractions until every target catch is met" has a closed-form fixed point:
+ * at c_i = Y_i / x_i the non-harvest output of i is φ_i (x_i − Y_i), so the balance reads
+ * x = z' + Φᵀ (x − Y), i.e. x = (I − Φᵀ)⁻¹ (z' − Φᵀ Y). One linear solve meets every catch exactly,
+ * with no iteration to cap or fail to converge; the catch fractions are then c_i = Y_i / x_i.
+ * A compartment whose throughflow would fall below its catch cannot supply it: refused, naming the
+ * catch and the most it could land with every other target held.
+ */
+
+/** Relative shortfall below which a compartment's leftover output counts as exactly zero. */
+const SUPPLY_TOLERANCE = 1e-9;
+
+interface Donor {
+  /** Φ_ij = T_ij / N_i over internal flows. */
+  readonly Phi: number[][];
+  /** Y_i: total target catch from i. */
+  readonly Y: number[];
+  /** z'_j: imports after production changes. */
+  readonly z: number[];
+}
+
+export function bottomUpResponse(plan: OptionPlan): Network {
+  const { network } = plan;
+  const donor = donorFractions(plan);
+  const x = throughflows(network, donor);
+  const leftover = x.map((xi, i) => xi - donor.Y[i]);
+  const short = leftover.flatMap((rest, i) => (rest < -SUPPLY_TOLERANCE * Math.max(x[i], donor.Y[i]) ? [i] : []));
+  if (short.length > 0) throw new WebError('infeasible', short.map((i) => shortfall(plan, donor, x, i)));
+  const nonHarvest = nonHarvestOutput(network);
+  const stranded = leftover.flatMap((rest, i) => (nonHarvest[i] === 0 && rest > SUPPLY_TOLERANCE * x[i] ? [i] : []));
+  if (stranded.length > 0) {
+    throw new WebError(
+      'infeasible',
+      stranded.map(
+        (i) =>
+          `${labelsOn(plan, i)}: "${network.ids[i]}" has no output but its catch in the baseline, so nothing can take up the ${leftover[i]} its catch would leave`,
+      ),
+    );
+  }
+
+  const values = network.fluxes.map((f, k) => {
+    if (f.kind === 'import') return plan.imports.get(k) ?? f.value;
+    if (f.fleet !== undefined) return f.value;
+    return nonHarvest[f.from] > 0 ? (f.value / nonHarvest[f.from]) * Math.max(0, leftover[f.from]) : 0;
+  });
+  for (const c of plan.catches) values[c.flux] = c.amount;
+  return withFluxValues(network, values);
+}
+
+/** Catch fractions c_i = Y_i / x_i of the option web (the fractions the fixed point settles on). */
+export function catchFractions(optionNetwork: Network): number[] {
+  return optionNetwork.throughflow.map((x, i) => {
+    const Y = optionNetwork.catches.reduce((sum, row) => sum + row[i], 0);
+    return x > 0 ? Y / x : 0;
+  });
+}
+
+function donorFractions(plan: OptionPlan): Donor {
+  const { network } = plan;
+  const n = network.n;
+  const nonHarvest = nonHarvestOutput(network);
+  const Phi = network.T.map((row, i) => row.map((t) => (nonHarvest[i] > 0 ? t / nonHarvest[i] : 0)));
+  const Y = new Array<number>(n).fill(0);
+  for (const c of plan.catches) Y[c.compartment] += c.amount;
+  const z = network.z.slice();
+  for (const [k, value] of plan.imports) z[network.fluxes[k].to] += value - network.fluxes[k].value;
+  return { Phi, Y, z };
+}
+
+/** x = (I − Φᵀ)⁻¹ (z' − Φᵀ Y). */
+function throughflows(network: Network, { Phi, Y, z }: Donor): number[] {
+  const n = network.n;
+  const b = z.slice();
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) b[j] -= Phi[i][j] * Y[i];
+  const A = new Matrix(n, n);
+  for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) A.set(j, i, (i === j ? 1 : 0) - Phi[i][j]);
+  const lu = new LuDecomposition(A);
+  const x = lu.isSingular() ? [] : lu.solve(Matrix.columnVector(b)).getColumn(0);
+  if (x.length !== n || !x.every(Number.isFinite)) {
+    throw new WebError('infeasible', [
+      'bottom-up response: some compartments have no exit but their catches, so donor control cannot settle their throughflow',
+    ]);
+  }
+  return x;
+}
+
+/** N_i: baseline output of i other than catches (flows, other exports, respiration). */
+function nonHarvestOutput(network: Network): number[] {
+  const N = new Array<number>(network.n).fill(0);
+  for (const f of network.fluxes) if (f.from !== OUTSIDE && f.fleet === undefined) N[f.from] += f.value;
+  return N;
+}
+
+function labelsOn(plan: OptionPlan, i: number): string {
+  const onI = plan.catches.filter((c) => c.compartment === i && c.amount > 0);
+  const adjusted = onI.filter((c) => c.label.startsWith('adjustments['));
+  return (adjusted.length > 0 ? adjusted : onI).map((c) => c.label).join(' and ');
+}
+
+/** The most i can land with every other target held: its throughflow when nothing but catch leaves it. */
+function shortfall(plan: OptionPlan, donor: Donor, x: readonly number[], i: number): string {
+  const Phi = donor.Phi.map((row, r) => (r === i ? row.map(() => 0) : row));
+  const Y = donor.Y.map((y, r) => (r === i ? 0 : y));
+  const most = throughflows(plan.network, { Phi, Y, z: donor.z })[i];
+  const id = plan.network.ids[i];
+  return `${labelsOn(plan, i)}: "${id}" cannot supply a catch of ${donor.Y[i]} under the bottom-up response (its throughflow would be ${x[i]}; the most it can land with the other catches held is ${Math.max(0, most)})`;
+}

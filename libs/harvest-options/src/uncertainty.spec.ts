@@ -1,0 +1,124 @@
+import fc from 'fast-check';
+import type { HarvestOption, Web } from '@seinework/contracts';
+import { createNetwork, scalarIndicators, SCALAR_INDICATORS } from '@seinework/network-analysis';
+import cone from '../../../tests/fixtures/cone-spring.json';
+import { applyOption } from './apply-option';
+import { drawSeed, lognormalDraw } from './uncertainty-draw';
+import { createDrawPool, optionUncertainty, quantile } from './uncertainty';
+import { webWithAdjustments } from './testing/option-arbitraries';
+
+const coneWeb = cone as Web;
+const newFishery: HarvestOption = {
+  name: 'detritivore fishery',
+  response: 'bottom-up',
+  adjustments: [{ type: 'open-fishery', fleet: 'net', compartment: 'detritivores', amount: 100 }],
+};
+
+describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
+  it('with cv = 0 every band collapses to the deterministic value', async () => {
+    await fc.assert(
+      fc.asyncProperty(webWithAdjustments({ max: 10 }), async ({ web, adjustments }) => {
+        const baseline = createNetwork(web);
+        const option = { response: 'bottom-up' as const, adjustments };
+        const before = scalarIndicators(baseline);
+        const after = scalarIndicators(applyOption(baseline, option));
+        const summary = await optionUncertainty(web, option, { draws: 5, cv: 0, seed: 1 }, { workers: 0 });
+        expect(summary.failed).toBe(0);
+        for (const key of SCALAR_INDICATORS) {
+          const u = summary.indicators[key];
+          if (before[key] === null) expect(u.baseline).toBeNull();
+          else expect(u.baseline).toEqual({ median: before[key], p5: before[key], p95: before[key] });
+          if (after[key] !== null) expect(u.option).toEqual({ median: after[key], p5: after[key], p95: after[key] });
+          if (before[key] !== null && after[key] !== null) {
+            const d = after[key]! - before[key]!;
+            expect(u.difference).toEqual({ median: d, p5: d, p95: d });
+            expect(u.shareDifferencePositive).toBe(d > 0 ? 1 : 0);
+            expect(u.robust).toBe(d !== 0);
+          }
+        }
+      }),
+      { numRuns: 10 },
+    );
+  });
+
+  it('medians approach the deterministic value as cv shrinks', async () => {
+    const baseline = createNetwork(coneWeb);
+    const exact = scalarIndicators(applyOption(baseline, newFishery)).robustness - scalarIndicators(baseline).robustness;
+    const error = async (cv: number) => {
+      const s = await optionUncertainty(coneWeb, newFishery, { draws: 41, cv, seed: 11 }, { workers: 0 });
+      return Math.abs(s.indicators.robustness.difference!.median - exact);
+    };
+    const [large, medium, small] = [await error(0.2), await error(0.02), await error(0.0002)];
+    expect(medium).toBeLessThan(large);
+    expect(small).toBeLessThan(medium);
+    expect(small).toBeLessThan(1e-3 * Math.abs(exact));
+  });
+
+  it('is identical bit for bit on worker threads and in process, whatever the chunking or pool, and reports progress', async () => {
+    const settings = { draws: 24, cv: 0.15, seed: 2024 };
+    const progress: [number, number][] = [];
+    const onWorkers = await optionUncertainty(coneWeb, newFishery, settings, { workers: 2, chunkSize: 5, onProgress: (done, total) => progress.push([done, total]) });
+    const inProcess = await optionUncertainty(coneWeb, newFishery, settings, { workers: 0, chunkSize: 24 });
+    expect(onWorkers).toEqual(inProcess);
+    expect(onWorkers.succeeded).toBe(24);
+    expect(progress).toHaveLength(5);
+    expect(progress.at(-1)).toEqual([24, 24]);
+    expect(progress.map(([done]) => done)).toEqual([...progress.map(([done]) => done)].sort((a, b) => a - b));
+    const pool = createDrawPool(2);
+    try {
+      expect(await optionUncertainty(coneWeb, newFishery, settings, { pool, chunkSize: 7 })).toEqual(inProcess);
+      expect(await optionUncertainty(coneWeb, newFishery, settings, { pool })).toEqual(inProcess);
+    } finally {
+      await pool.destroy();
+    }
+    const other = await optionUncertainty(coneWeb, newFishery, { ...settings, seed: 2025 }, { workers: 0 });
+    expect(other.indicators.tst.baseline!.median).not.toBe(inProcess.indicators.tst.baseline!.median);
+  });
+
+  it('counts and reports draws in which the option cannot be met', async () => {
+    // carnivores can land at most about 363.6 with everything else fixed; near it, some draws fail
+    const option: HarvestOption = { ...newFishery, adjustments: [{ type: 'open-fishery', fleet: 'net', compartment: 'carnivores', amount: 355 }] };
+    const summary = await optionUncertainty(coneWeb, option, { draws: 30, cv: 0.1, seed: 3 }, { workers: 0 });
+    expect(summary.failed).toBeGreaterThan(0);
+    expect(summary.succeeded).toBeGreaterThan(0);
+    expect(summary.failed + summary.succeeded).toBe(30);
+    expect(summary.failures[0]).toMatch(/^draw \d+: adjustments\[0\] .*cannot supply/);
+  });
+
+  it('refuses an invalid option before drawing', async () => {
+    await expect(
+      optionUncertainty(coneWeb, { adjustments: [{ type: 'close-fleet', fleet: 'nobody' }] }, { draws: 3, cv: 0.1, seed: 1 }, { workers: 0 }),
+    ).rejects.toThrow(/adjustments\[0\] \(close-fleet "nobody"\): unknown fleet/);
+  });
+});
+
+describe('draws', () => {
+  it('lognormal factors have mean 1 and the flux’s cv (σ² = ln(1 + cv²), μ = −σ²/2)', () => {
+    const network = createNetwork({ name: 'one', unit: 'u', compartments: [{ id: 'a', name: 'A', kind: 'producer' }], flows: [], imports: [{ to: 'a', value: 1, cv: 0.5 }], exports: [], respiration: [{ from: 'a', value: 1 }] });
+    const factors = Array.from({ length: 20000 }, (_, k) => lognormalDraw(network, 0.1, drawSeed(9, k)));
+    const mean = (i: number) => factors.reduce((s, f) => s + f[i], 0) / factors.length;
+    const cv = (i: number) => {
+      const m = mean(i);
+      return Math.sqrt(factors.reduce((s, f) => s + (f[i] - m) ** 2, 0) / factors.length) / m;
+    };
+    expect(mean(0)).toBeCloseTo(1, 1);
+    expect(mean(1)).toBeCloseTo(1, 2);
+    expect(cv(0)).toBeCloseTo(0.5, 1);
+    expect(cv(1)).toBeCloseTo(0.1, 2);
+  });
+
+  it('draw seeds depend on the seed and the draw index only', () => {
+    expect(drawSeed(7, 3)).toBe(drawSeed(7, 3));
+    const seeds = new Set(Array.from({ length: 1000 }, (_, k) => drawSeed(7, k)));
+    expect(seeds.size).toBe(1000);
+    expect(drawSeed(7, 0)).not.toBe(drawSeed(8, 0));
+    expect(drawSeed(7, 0)).not.toBe(drawSeed(7 + 2 ** 32, 0));
+  });
+
+  it('quantiles interpolate between order statistics', () => {
+    expect(quantile([1, 2, 3, 4, 5], 0.5)).toBe(3);
+    expect(quantile([0, 10], 0.05)).toBeCloseTo(0.5, 12);
+    expect(quantile([4], 0.95)).toBe(4);
+    expect(quantile([1, Infinity, Infinity], 0.95)).toBe(Infinity);
+  });
+});

@@ -1,0 +1,182 @@
+import { availableParallelism } from 'node:os';
+import { createRequire } from 'node:module';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { Piscina } from 'piscina';
+import { SCALAR_INDICATORS, type ScalarIndicators, type UncertaintySettings, type Web } from '@seinework/contracts';
+import { createNetwork, requireAnalysable } from '@seinework/network-analysis';
+import type { OptionSpec } from './apply-option';
+import { planOption } from './option-web';
+import { runDraws, type DrawJob, type DrawOutcome } from './uncertainty-draw';
+
+/**
+ * Monte Carlo uncertainty of a harvest option (METHODS.md §8): many draws of the web within its
+ * flows' cvs, each balanced by least change and run through the option, summarised per scalar
+ * indicator as median and 5–95 % band of the baseline, the option and their difference, with the
+ * share of draws in which the difference is positive. Draws run in chunks on a pool of worker threads
+ * (piscina) or in process; results are identical bit for bit either way, since each draw's seed
+ * depends only on (seed, draw index) and the summary is taken over draws in index order.
+ */
+
+export type ScalarKey = (typeof SCALAR_INDICATORS)[number];
+
+export interface Band {
+  readonly median: number;
+  readonly p5: number;
+  readonly p95: number;
+}
+
+export interface IndicatorUncertainty {
+  /** null where the indicator has no value in any draw (e.g. no catch). */
+  readonly baseline: Band | null;
+  readonly option: Band | null;
+  readonly difference: Band | null;
+  /** Share of draws (with a difference) in which option − baseline > 0. */
+  readonly shareDifferencePositive: number | null;
+  /** The difference has the same sign in at least 90 % of draws. */
+  readonly robust: boolean;
+}
+
+export interface UncertaintySummary {
+  readonly draws: number;
+  readonly succeeded: number;
+  /** Draws refused (e.g. infeasible option on that draw): counted, never silently dropped. */
+  readonly failed: number;
+  /** The first few reasons, with their draw index. */
+  readonly failures: string[];
+  readonly cv: number;
+  readonly seed: number;
+  readonly indicators: Record<ScalarKey, IndicatorUncertainty>;
+}
+
+export interface UncertaintyRunOptions {
+  /** Worker threads; 0 runs every draw in this thread (default: one per core). Ignored when a pool is given. */
+  readonly workers?: number;
+  /** A long-lived pool (a server's), so that worker start-up is paid once; otherwise one is started and stopped. */
+  readonly pool?: DrawPool;
+  /** Draws per chunk (default: about eight chunks per worker, at most 100 draws). */
+  readonly chunkSize?: number;
+  /** Called after each chunk with the number of draws done so far. */
+  readonly onProgress?: (done: number, total: number) => void;
+}
+
+/** Share of draws with one sign for a difference to count as robust. */
+export const ROBUST_SHARE = 0.9;
+const FAILURES_LISTED = 5;
+
+export async function optionUncertainty(
+  web: Web,
+  option: OptionSpec,
+  settings: UncertaintySettings,
+  options: UncertaintyRunOptions = {},
+): Promise<UncertaintySummary> {
+  const network = createNetwork(web);
+  requireAnalysable(network);
+  planOption(network, option.adjustments);
+  const workers = options.pool ? options.pool.workers : Math.max(0, Math.floor(options.workers ?? availableParallelism()));
+  const chunkSize = Math.max(1, Math.floor(options.chunkSize ?? Math.min(100, Math.ceil(settings.draws / (8 * Math.max(1, workers))))));
+  const jobs: DrawJob[] = [];
+  for (let start = 0; start < settings.draws; start += chunkSize) {
+    jobs.push({ web, option: { response: option.response, adjustments: option.adjustments }, cv: settings.cv, seed: settings.seed, start, end: Math.min(settings.draws, start + chunkSize) });
+  }
+  let done = 0;
+  const finished = (outcomes: DrawOutcome[]) => {
+    done += outcomes.length;
+    options.onProgress?.(done, settings.draws);
+    return outcomes;
+  };
+  if (workers === 0) return summarise((await inProcess(jobs, finished)).flat(), settings);
+  const pool = options.pool ?? createDrawPool(workers);
+  try {
+    return summarise((await Promise.all(jobs.map(async (job) => finished(await pool.run(job))))).flat(), settings);
+  } finally {
+    if (!options.pool) await pool.destroy();
+  }
+}
+
+/** Worker threads running chunks of draws with the same engine as in process. */
+export interface DrawPool {
+  readonly workers: number;
+  run(job: DrawJob): Promise<DrawOutcome[]>;
+  destroy(): Promise<void>;
+}
+
+export function createDrawPool(workers = availableParallelism()): DrawPool {
+  const threads = Math.max(1, Math.floor(workers));
+  const pool = new Piscina({
+    filename: fileURLToPath(new URL('./uncertainty-worker.ts', import.meta.url)),
+    // the worker file is TypeScript: load it through tsx, in the tsx CLI and under vitest alike
+    execArgv: ['--import', pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href],
+    env: { ...process.env, TSX_TSCONFIG_PATH: process.env.TSX_TSCONFIG_PATH ?? fileURLToPath(new URL('../../../tsconfig.json', import.meta.url)) },
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: Infinity,
+  });
+  return {
+    workers: threads,
+    run: (job) => pool.run(job) as Promise<DrawOutcome[]>,
+    destroy: () => pool.destroy(),
+  };
+}
+
+async function inProcess(jobs: DrawJob[], finished: (o: DrawOutcome[]) => DrawOutcome[]): Promise<DrawOutcome[][]> {
+  const chunks: DrawOutcome[][] = [];
+  for (const job of jobs) {
+    chunks.push(finished(runDraws(job)));
+    // let the event loop breathe between chunks (a server forwarding progress stays responsive)
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  return chunks;
+}
+
+/** Bands and shares over the draws, in draw order. */
+export function summarise(outcomes: readonly DrawOutcome[], settings: UncertaintySettings): UncertaintySummary {
+  const ordered = [...outcomes].sort((a, b) => a.draw - b.draw);
+  const good = ordered.filter((o): o is Extract<DrawOutcome, { baseline: ScalarIndicators }> => !('failure' in o));
+  const bad = ordered.filter((o): o is Extract<DrawOutcome, { failure: string }> => 'failure' in o);
+  const indicators = Object.fromEntries(
+    SCALAR_INDICATORS.map((key) => {
+      const baseline = present(good.map((o) => o.baseline[key]));
+      const option = present(good.map((o) => o.option[key]));
+      const differences = present(good.map((o) => (o.baseline[key] === null || o.option[key] === null ? null : o.option[key]! - o.baseline[key]!)));
+      const positive = differences.filter((d) => d > 0).length / differences.length;
+      const negative = differences.filter((d) => d < 0).length / differences.length;
+      const summary: IndicatorUncertainty = {
+        baseline: band(baseline),
+        option: band(option),
+        difference: band(differences),
+        shareDifferencePositive: differences.length > 0 ? positive : null,
+        robust: differences.length > 0 && Math.max(positive, negative) >= ROBUST_SHARE,
+      };
+      return [key, summary];
+    }),
+  ) as Record<ScalarKey, IndicatorUncertainty>;
+  return {
+    draws: ordered.length,
+    succeeded: good.length,
+    failed: bad.length,
+    failures: bad.slice(0, FAILURES_LISTED).map((o) => `draw ${o.draw}: ${o.failure}`),
+    cv: settings.cv,
+    seed: settings.seed,
+    indicators,
+  };
+}
+
+function present(values: readonly (number | null)[]): number[] {
+  return values.filter((v): v is number => v !== null);
+}
+
+function band(values: readonly number[]): Band | null {
+  if (values.length === 0) return null;
+  const sorted = [...values].sort((a, b) => a - b);
+  return { median: quantile(sorted, 0.5), p5: quantile(sorted, 0.05), p95: quantile(sorted, 0.95) };
+}
+
+/** Linear interpolation between order statistics (Hyndman & Fan 1996, definition 7). */
+export function quantile(sorted: readonly number[], p: number): number {
+  const h = (sorted.length - 1) * p;
+  const below = Math.floor(h);
+  const above = Math.min(sorted.length - 1, below + 1);
+  // equal neighbours give that value exactly (also when infinite, where the interpolation would give NaN)
+  if (sorted[above] === sorted[below]) return sorted[below];
+  return sorted[below] + (h - below) * (sorted[above] - sorted[below]);
+}

@@ -1,0 +1,38 @@
+import type { Network } from './network';
+import { requireAnalysable } from './balance-check';
+import { inverseOfIdentityMinus } from './linear-algebra';
+
+/**
+ * Finn cycling index (Finn 1976, J. theor. Biol. 56:363-380; Finn 1980), METHODS.md §5.
+ * With output fractions F_ij = T_ij / T_i and M = (I − F)⁻¹, M_ii is the expected number of
+ * visits to i of a unit entering i, so 1 − 1/M_ii is the chance that it comes back: the cycled
+ * part of i's throughflow is T_i (1 − 1/M_ii). FCI = Σ cycled / Σ T_i, the denominator being
+ * the sum of throughflows (TST in Finn's sense), and Finn's ratio TST_c / (TST − TST_c).
+ */
+
+export interface FinnCycling {
+  finnCyclingIndex: number;
+  /** T_i (1 − 1/M_ii), per compartment. */
+  cycledThroughflow: number[];
+  /** TST_c = Σ_i cycledThroughflow_i. */
+  totalCycledThroughflow: number;
+  /** TST_c / (TST − TST_c). */
+  cycledToStraightRatio: number;
+}
+
+export function finnCycling(network: Network): FinnCycling {
+  requireAnalysable(network);
+  const { T, throughflow } = network;
+  // A compartment with no throughflow passes nothing on: its row of F is zero.
+  const F = T.map((row, i) => row.map((t) => (throughflow[i] > 0 ? t / throughflow[i] : 0)));
+  const M = inverseOfIdentityMinus(F);
+  const cycledThroughflow = throughflow.map((Ti, i) => Ti * (1 - 1 / M[i][i]));
+  const totalCycledThroughflow = cycledThroughflow.reduce((s, c) => s + c, 0);
+  const tst = throughflow.reduce((s, t) => s + t, 0);
+  return {
+    finnCyclingIndex: tst > 0 ? totalCycledThroughflow / tst : 0,
+    cycledThroughflow,
+    totalCycledThroughflow,
+    cycledToStraightRatio: totalCycledThroughflow / (tst - totalCycledThroughflow),
+  };
+}

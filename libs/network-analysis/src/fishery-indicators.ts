@@ -1,0 +1,188 @@
+import type { Network } from './network';
+import { requireAnalysable } from './balance-check';
+import { identityMinus, solve } from './linear-algebra';
+import { WebError } from './web-error';
+
+/**
+ * Fishery indicators (METHODS.md §9): catch, tonnes and value per fleet and in total; mean trophic
+ * level of the catch (Pauly et al. 1998, Science 279:860-863); primary production required in
+ * network form (Hannon-type intensities) and by the rule of thumb (Pauly & Christensen 1995,
+ * Nature 374:255-257); Fishing-in-Balance (Pauly, Christensen & Walters 2000, ICES J. Mar. Sci.
+ * 57:697-706).
+ */
+
+/** Carbon to wet weight, 1:9 (Pauly & Christensen 1995). */
+export const WET_WEIGHT_PER_CARBON = 9;
+/** Mean transfer efficiency between trophic levels, about 10 % (Pauly & Christensen 1995). */
+export const DEFAULT_TRANSFER_EFFICIENCY = 0.1;
+
+export interface FleetIndicators {
+  catch: number;
+  tonnes: number | null;
+  value: number | null;
+  meanTrophicLevelOfCatch: number | null;
+  primaryProductionRequired: number;
+}
+
+export interface FisheryIndicators {
+  totalCatch: number;
+  totalTonnes: number | null;
+  totalValue: number | null;
+  /** Σ Y_i TL_i / Σ Y_i; null with no catch. */
+  meanTrophicLevelOfCatch: number | null;
+  /** ε_j; null where no output but respiration ever leaves the web from j (see primaryProductionIntensity). */
+  primaryProductionIntensity: (number | null)[];
+  /** Σ ε_j Y_j over all catches. */
+  primaryProductionRequired: number;
+  /** PPR / total imports to producers; null with no primary production. */
+  primaryProductionRequiredShare: number | null;
+  /** Tonnes C per year by the rule of thumb; null unless the web gives areaKm2 and tonnesPerUnit. */
+  ruleOfThumbPrimaryProductionRequired: number | null;
+  fleets: Record<string, FleetIndicators>;
+}
+
+export function fisheryIndicators(network: Network, trophicLevels: readonly number[]): FisheryIndicators {
+  requireAnalysable(network);
+  const { n, z, kinds, catches, fleets } = network;
+  const epsilon = primaryProductionIntensity(network);
+  const Y = new Array<number>(n).fill(0);
+  for (const row of catches) row.forEach((y, i) => (Y[i] += y));
+  const total = catchIndicators(network, Y, epsilon, trophicLevels, prices(network));
+  const primaryProduction = z.reduce((sum, w, j) => sum + (kinds[j] === 'producer' ? w : 0), 0);
+  const tonnesPerUnit = tonnesPerFlowUnit(network);
+  return {
+    totalCatch: total.catch,
+    totalTonnes: total.tonnes,
+    totalValue: total.value,
+    meanTrophicLevelOfCatch: total.meanTrophicLevelOfCatch,
+    primaryProductionIntensity: epsilon,
+    primaryProductionRequired: total.primaryProductionRequired,
+    primaryProductionRequiredShare: primaryProduction > 0 ? total.primaryProductionRequired / primaryProduction : null,
+    ruleOfThumbPrimaryProductionRequired:
+      tonnesPerUnit === null
+        ? null
+        : ruleOfThumbPrimaryProductionRequired(
+            Y.flatMap((y, i) => (y > 0 ? [{ tonnesWet: y * tonnesPerUnit, trophicLevel: trophicLevels[i] }] : [])),
+          ),
+    fleets: Object.fromEntries(
+      fleets.map((fleet, f) => [fleet, catchIndicators(network, catches[f], epsilon, trophicLevels, prices(network, fleet))]),
+    ),
+  };
+}
+
+/**
+ * Primary production embodied per unit of non-respired output: ε_j (T_j − r_j) = Σ_i ε_i T_ij + w_j,
+ * w_j the imports to producers. T_j − r_j is taken on the output side (e_j + Σ_k T_jk) so that
+ * Σ ε_j e_j = Σ w holds to machine precision even within the balance tolerance.
+ *
+ * Where nothing but respiration ever leaves the web from j — T_j = r_j, or j reaches no export along
+ * flows — all primary production reaching j is dissipated, ε_j would be infinite and the system
+ * singular: ε_j is null and j is left out. Conservation then reads
+ * Σ ε_j e_j + (primary production flowing into those compartments) = Σ w.
+ */
+export function primaryProductionIntensity(network: Network): (number | null)[] {
+  const { n, T, z, e, kinds } = network;
+  const exporting = reachesExport(network);
+  const kept = Array.from({ length: n }, (_, j) => j).filter((j) => exporting[j]);
+  const output = kept.map((j) => e[j] + T[j].reduce((sum, t) => sum + t, 0));
+  // x_j = ε_j (T_j − r_j) solves x = (I − F'ᵀ)⁻¹ w with F'_ij = T_ij / (T_i − r_i).
+  const FT = kept.map((j) => kept.map((i, a) => T[i][j] / output[a]));
+  const w = kept.map((j) => (kinds[j] === 'producer' ? z[j] : 0));
+  const x = kept.length > 0 ? solve(identityMinus(FT), w) : [];
+  const epsilon = new Array<number | null>(n).fill(null);
+  kept.forEach((j, a) => (epsilon[j] = x[a] / output[a]));
+  return epsilon;
+}
+
+/** Compartments from which some export can be reached along positive flows (itself included). */
+function reachesExport(network: Network): boolean[] {
+  const { n, T, e } = network;
+  const reaches = e.map((ej) => ej > 0);
+  const stack = reaches.flatMap((yes, i) => (yes ? [i] : []));
+  while (stack.length > 0) {
+    const j = stack.pop()!;
+    for (let i = 0; i < n; i++) {
+      if (!reaches[i] && T[i][j] > 0) {
+        reaches[i] = true;
+        stack.push(i);
+      }
+    }
+  }
+  return reaches;
+}
+
+/** Price per tonne of each compartment's harvest by one fleet (or by any fleet, for the total value). */
+function prices(network: Network, fleet?: string): { compartment: number; fleet: string; price: number }[] {
+  return network.fluxes.flatMap((f) =>
+    f.kind === 'export' && f.fleet !== undefined && f.price !== undefined && (fleet === undefined || f.fleet === fleet)
+      ? [{ compartment: f.from, fleet: f.fleet, price: f.price }]
+      : [],
+  );
+}
+
+function catchIndicators(
+  network: Network,
+  Y: readonly number[],
+  epsilon: readonly (number | null)[],
+  TL: readonly number[],
+  priced: ReturnType<typeof prices>,
+): FleetIndicators {
+  const tonnesPerUnit = tonnesPerFlowUnit(network);
+  let total = 0;
+  let weightedLevel = 0;
+  let required = 0;
+  Y.forEach((y, i) => {
+    if (y === 0) return;
+    total += y;
+    weightedLevel += y * TL[i];
+    // a compartment with a catch has an export, so its intensity is never null
+    required += y * epsilon[i]!;
+  });
+  const catchOf = (p: (typeof priced)[number]) => network.catches[network.fleets.indexOf(p.fleet)][p.compartment];
+  return {
+    catch: total,
+    tonnes: tonnesPerUnit === null ? null : total * tonnesPerUnit,
+    value:
+      tonnesPerUnit === null || priced.length === 0
+        ? null
+        : priced.reduce((sum, p) => sum + catchOf(p) * tonnesPerUnit * p.price, 0),
+    meanTrophicLevelOfCatch: total > 0 ? weightedLevel / total : null,
+    primaryProductionRequired: required,
+  };
+}
+
+/** Tonnes wet weight per year in one flow unit over the whole area; null unless both are given. */
+function tonnesPerFlowUnit(network: Network): number | null {
+  return network.areaKm2 === undefined || network.tonnesPerUnit === undefined ? null : network.areaKm2 * network.tonnesPerUnit;
+}
+
+/**
+ * FiB = log10(Y (1/TE)^TL) − log10(Y0 (1/TE)^TL0): 0 when a change in catch is what the change in
+ * mean trophic level of the catch would yield at efficiency TE. Defined for positive catches only.
+ */
+export function fishingInBalance(
+  catchNow: number,
+  trophicLevelNow: number,
+  catchReference: number,
+  trophicLevelReference: number,
+  transferEfficiency = DEFAULT_TRANSFER_EFFICIENCY,
+): number {
+  const problems = [
+    ...(catchNow > 0 ? [] : [`Fishing-in-Balance needs a positive catch, not ${catchNow}`]),
+    ...(catchReference > 0 ? [] : [`Fishing-in-Balance needs a positive reference catch, not ${catchReference}`]),
+    ...(transferEfficiency > 0 && transferEfficiency < 1
+      ? []
+      : [`the transfer efficiency must lie between 0 and 1, not ${transferEfficiency}`]),
+  ];
+  if (problems.length > 0) throw new WebError('invalid', problems);
+  const perLevel = Math.log10(1 / transferEfficiency);
+  return Math.log10(catchNow) + trophicLevelNow * perLevel - (Math.log10(catchReference) + trophicLevelReference * perLevel);
+}
+
+/** Σ (Y_i / 9) · 10^(TL_i − 1): tonnes of carbon of primary production for catches in tonnes wet weight. */
+export function ruleOfThumbPrimaryProductionRequired(catches: readonly { tonnesWet: number; trophicLevel: number }[]): number {
+  return catches.reduce(
+    (sum, c) => sum + (c.tonnesWet / WET_WEIGHT_PER_CARBON) * (1 / DEFAULT_TRANSFER_EFFICIENCY) ** (c.trophicLevel - 1),
+    0,
+  );
+}
