@@ -31,10 +31,10 @@ export function analyze(network: Network, options: AnalyzeOptions = {}): Analysi
   const information = informationIndices(network);
   const levels = trophicLevels(network);
   const fishery = fisheryIndicators(network, levels.levels);
-  const cycling = finnCycling(network);
   const dependency = dependencies(network);
+  const cycling = finnCycling(network, dependency.passesThrough);
   const impact = mixedTrophicImpact(network);
-  const ladder = trophicLadder(network);
+  const ladder = trophicLadder(network, { levelsChecked: true });
   const cycles = options.cycles === false ? null : cycleAnalysis(network, options.cycles);
   const existingFlows = (matrix: number[][]) => byFlow(network, matrix);
 

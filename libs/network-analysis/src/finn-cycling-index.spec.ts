@@ -4,6 +4,7 @@ import cone from '../../../tests/fixtures/cone-spring.json';
 import { createNetwork, networkFromJson } from './network';
 import { countSimpleCycles } from './cycles';
 import { finnCycling } from './finn-cycling-index';
+import { dependencies } from './total-dependency';
 import { WebError } from './web-error';
 import { balancedWeb } from './testing/arbitraries';
 
@@ -65,6 +66,18 @@ describe('Finn cycling index (Finn 1976, J. theor. Biol. 56:363-380; Finn 1980)'
         if (countSimpleCycles(network).count > 0) expect(result.finnCyclingIndex).toBeGreaterThan(1e-12);
       }),
       { numRuns: 80 },
+    );
+  });
+
+  it('gives the same cycled throughflow from the diagonal of N (as the full analysis does) as from M', () => {
+    fc.assert(
+      fc.property(balancedWeb({ max: 20 }), (web) => {
+        const network = createNetwork(web);
+        const fromM = finnCycling(network);
+        const fromN = finnCycling(network, dependencies(network).passesThrough);
+        fromN.cycledThroughflow.forEach((c, i) => expect(c).toBeCloseTo(fromM.cycledThroughflow[i], 9));
+      }),
+      { numRuns: 50 },
     );
   });
 

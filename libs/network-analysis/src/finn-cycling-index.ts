@@ -20,13 +20,14 @@ export interface FinnCycling {
   cycledToStraightRatio: number;
 }
 
-export function finnCycling(network: Network): FinnCycling {
+/**
+ * `passesThrough` (the diagonal of M, as `dependencies()` already computes it) spares a second
+ * matrix inverse when the whole analysis runs; without it M is computed here.
+ */
+export function finnCycling(network: Network, passesThrough: readonly number[] = diagonalOfM(network)): FinnCycling {
   requireAnalysable(network);
-  const { T, throughflow } = network;
-  // A compartment with no throughflow passes nothing on: its row of F is zero.
-  const F = T.map((row, i) => row.map((t) => (throughflow[i] > 0 ? t / throughflow[i] : 0)));
-  const M = inverseOfIdentityMinus(F);
-  const cycledThroughflow = throughflow.map((Ti, i) => Ti * (1 - 1 / M[i][i]));
+  const { throughflow } = network;
+  const cycledThroughflow = throughflow.map((Ti, i) => Ti * (1 - 1 / passesThrough[i]));
   const totalCycledThroughflow = cycledThroughflow.reduce((s, c) => s + c, 0);
   const tst = throughflow.reduce((s, t) => s + t, 0);
   return {
@@ -35,4 +36,11 @@ export function finnCycling(network: Network): FinnCycling {
     totalCycledThroughflow,
     cycledToStraightRatio: totalCycledThroughflow / (tst - totalCycledThroughflow),
   };
+}
+
+function diagonalOfM(network: Network): number[] {
+  const { T, throughflow } = network;
+  // A compartment with no throughflow passes nothing on: its row of F is zero.
+  const F = T.map((row, i) => row.map((t) => (throughflow[i] > 0 ? t / throughflow[i] : 0)));
+  return inverseOfIdentityMinus(F).map((row, i) => row[i]);
 }

@@ -49,6 +49,24 @@ describe('linear-algebra against mathjs', () => {
     );
   });
 
+  it('inverseOfIdentityMinus agrees with mathjs inv where elimination must interchange rows', () => {
+    // I − A = a permutation matrix scaled by 4 plus entries in [−1, 1]: invertible and well
+    // conditioned, but the largest entry of a column is usually off the diagonal.
+    const needsPivoting = fc.integer({ min: 2, max: 10 }).chain((n) =>
+      fc.tuple(
+        fc.shuffledSubarray([...Array(n).keys()], { minLength: n, maxLength: n }),
+        fc.array(fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: n, maxLength: n }), { minLength: n, maxLength: n }),
+      ),
+    );
+    fc.assert(
+      fc.property(needsPivoting, ([permutation, noise]) => {
+        const B = noise.map((row, i) => row.map((v, j) => v / row.length + (permutation[i] === j ? 4 : 0)));
+        const A = plainIdentityMinus(B);
+        expect(maxGap(inverseOfIdentityMinus(A), inv(B) as number[][])).toBeLessThanOrEqual(TOLERANCE);
+      }),
+    );
+  });
+
   it('solve agrees with mathjs lusolve on well-conditioned matrices', () => {
     fc.assert(
       fc.property(contraction, ({ A, b }) => {

@@ -43,6 +43,11 @@ export interface Dependencies {
   total: number[][];
   /** c[i][j]: share of i's output that passes through j at least once; c[i][i] its cycled share. */
   totalContribution: number[][];
+  /**
+   * N_jj = M_jj: the expected number of passes through j of a unit entering j (the two diagonals
+   * agree because M = D⁻¹ N D). The Finn cycling index needs nothing else from the inverse.
+   */
+  passesThrough: number[];
 }
 
 /**
@@ -75,5 +80,5 @@ export function dependencies(network: Network): Dependencies {
       }
     }
   }
-  return { allPathway, total, totalContribution };
+  return { allPathway, total, totalContribution, passesThrough: N.map((row, i) => row[i]) };
 }

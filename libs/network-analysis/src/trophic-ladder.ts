@@ -51,9 +51,17 @@ export interface TrophicLadder {
   meanEfficiency: number | null;
 }
 
-export function trophicLadder(network: Network): TrophicLadder {
+export interface TrophicLadderOptions {
+  /**
+   * Set when trophicLevels() has already accepted this network (as the full analysis does), to
+   * skip solving for the levels a second time.
+   */
+  readonly levelsChecked?: boolean;
+}
+
+export function trophicLadder(network: Network, options: TrophicLadderOptions = {}): TrophicLadder {
   // trophicLevels checks the web and that every consumer is grounded, so the shares converge.
-  trophicLevels(network);
+  if (!options.levelsChecked) trophicLevels(network);
   const shares = levelShares(network);
   const count = shares.length > 0 ? shares[0].length : 0;
   const flows = Array.from({ length: count }, (_, k) => levelFlows(network, shares, k));
@@ -71,9 +79,11 @@ export function trophicLadder(network: Network): TrophicLadder {
  * exactly: below 1e-12 when the shares converged, levels K and above together when cut at 20.
  */
 export function levelShares(network: Network): number[][] {
-  const { n, kinds } = network;
+  const { n, T, kinds } = network;
   const g = internalDiet(network);
-  const importOnly = kinds.map((kind, j) => kind === 'consumer' && g.every((row) => row[j] === 0));
+  const intake = new Array<number>(n).fill(0);
+  for (const row of T) for (let j = 0; j < n; j++) intake[j] += row[j];
+  const importOnly = kinds.map((kind, j) => kind === 'consumer' && intake[j] === 0);
   const shares: number[][] = kinds.map((kind) => [kind === 'consumer' ? 0 : 1]);
   const cumulative = shares.map((s) => s[0]);
   for (let k = 1; k < MAX_LEVELS && remaining(cumulative) >= REMAINING_SHARE; k++) {
