@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { resolve } from 'node:path';
 import cone from '../../../tests/fixtures/cone-spring.json';
+import demo from '../../../seeds/brannock-bay.json';
 import { createApp } from './app';
 
 let server: Server;
@@ -61,5 +62,62 @@ describe('server', () => {
     const response = await fetch(`${base}/api/nothing-here`);
     expect(response.status).toBe(404);
     expect((await json(response)).error).toMatch(/No such API route/);
+  });
+
+  describe('harvest options', () => {
+    const newDetritivoreFishery = {
+      name: 'New detritivore fishery',
+      adjustments: [{ type: 'open-fishery', fleet: 'net', compartment: 'detritivores', amount: 100 }],
+    };
+
+    it('runs an option: baseline, option, difference and the balanced option web', async () => {
+      const response = await post('/api/options/run', JSON.stringify({ web: cone, option: newDetritivoreFishery }));
+      expect(response.status).toBe(200);
+      const body = await json(response);
+      expect(Object.keys(body).sort()).toEqual(['baseline', 'difference', 'option', 'web']);
+      // METHODS.md §8 check, computed from the Cone Spring table (Tilly 1968 via Finn 1976)
+      const flow = body.web.flows.find((f: { from: string; to: string }) => f.from === 'detritivores' && f.to === 'carnivores');
+      expect(flow.value).toBeCloseTo(353.881, 3);
+      expect(body.difference.totalCatch).toBeCloseTo(100, 9);
+    });
+
+    it('adds seeded uncertainty bands when the option asks for them', async () => {
+      const option = { ...newDetritivoreFishery, uncertainty: { draws: 12, cv: 0.1, seed: 7 } };
+      const first = await json(await post('/api/options/run', JSON.stringify({ web: cone, option })));
+      const again = await json(await post('/api/options/run', JSON.stringify({ web: cone, option })));
+      expect(first.uncertainty.succeeded).toBe(12);
+      expect(first.uncertainty.indicators.totalCatch.difference.median).toBeCloseTo(100, 9);
+      expect(again.uncertainty).toEqual(first.uncertainty);
+    });
+
+    it('answers 422 naming an adjustment the web cannot take', async () => {
+      const option = { name: 'x', adjustments: [{ type: 'close-fleet', fleet: 'nobody' }] };
+      const response = await post('/api/options/run', JSON.stringify({ web: cone, option }));
+      expect(response.status).toBe(422);
+      expect((await json(response)).problems[0]).toMatch(/^adjustments\[0\] \(close-fleet "nobody"\): unknown fleet "nobody"/);
+    });
+
+    it('answers 422 to more draws than one request may hold', async () => {
+      const option = { ...newDetritivoreFishery, uncertainty: { draws: 50_000, cv: 0.1, seed: 1 } };
+      const response = await post('/api/options/run', JSON.stringify({ web: cone, option }));
+      expect(response.status).toBe(422);
+      expect((await json(response)).problems[0]).toMatch(/at most 5000 draws per request/);
+    });
+
+    it('answers 400 to a body of the wrong shape', async () => {
+      const response = await post('/api/options/run', JSON.stringify({ web: cone, option: newDetritivoreFishery, extra: 1 }));
+      expect(response.status).toBe(400);
+      expect((await json(response)).error).toBe('The request body does not have the expected shape');
+    });
+
+    it('tabulates harvest sensitivity for every catch of the demo bay, sorted toward the fitness peak', async () => {
+      const response = await post('/api/options/sensitivity', JSON.stringify({ web: demo, response: 'least-change' }));
+      expect(response.status).toBe(200);
+      const body = await json(response);
+      expect(body.response).toBe('least-change');
+      expect(body.rows).toHaveLength(demo.exports.filter((e) => 'fleet' in e).length);
+      const toward = body.byRobustness.map((row: { distanceFromPeakChange: number }) => row.distanceFromPeakChange);
+      expect(toward).toEqual([...toward].sort((a, b) => a - b));
+    });
   });
 });

@@ -4,13 +4,17 @@ import { join } from 'node:path';
 import { demoRoutes } from './demo/demo-routes';
 import { analysisRoutes } from './http/analysis-routes';
 import { errorHandler, RequestError } from './http/errors';
+import { optionRoutes } from './http/option-routes';
 import { originCheck } from './http/origin-check';
+import type { DrawPool } from '@seinework/harvest-options';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
   readonly demoWebPath: string;
   /** Built browser app (dist/web/browser); omitted in API-only tests. */
   readonly staticDir?: string;
+  /** Worker threads for uncertainty draws (the server's, started once); draws run in process without it. */
+  readonly drawPool?: DrawPool;
 }
 
 export async function createApp(settings: AppSettings): Promise<Express> {
@@ -23,6 +27,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   });
   app.use('/api/demo', await demoRoutes(settings.demoWebPath));
   app.use('/api/analyses', analysisRoutes());
+  app.use('/api/options', optionRoutes({ drawPool: settings.drawPool }));
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.path}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {
     const staticDir = settings.staticDir;
