@@ -6,6 +6,8 @@ export default defineConfig({
   test: {
     globals: true,
     include: ['libs/**/*.spec.ts', 'apps/server/**/*.spec.ts', 'tests/**/*.spec.ts'],
+    // need the built app and Chromium: vitest.browser.config.ts
+    exclude: ['tests/browser/**', '**/node_modules/**'],
     testTimeout: 30_000,
   },
 });

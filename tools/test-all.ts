@@ -30,9 +30,9 @@ function check(label: string, command: string, args: string[]): Tally {
   return ok ? { passed: 1, failed: 0 } : { passed: 0, failed: 1 };
 }
 
-function vitestSuite(): Tally {
-  const report = join(reportDir, 'vitest.json');
-  const { ok } = run('engine, CLI and server tests (vitest)', bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]);
+function vitestSuite(label: string, config: string): Tally {
+  const report = join(reportDir, `${config}.json`);
+  const { ok } = run(label, bin('vitest'), ['run', '--config', config, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]);
   try {
     const json = JSON.parse(readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTestSuites: number; success: boolean };
     // a file that fails to load has no failed test of its own: count the run as one more failure
@@ -53,8 +53,10 @@ function angularSuite(): Tally {
 const tallies: Tally[] = [
   check('typecheck (libs, server, tools, tests)', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']),
   check('production build of the browser app (template typecheck)', bin('ng'), ['build', 'web']),
-  vitestSuite(),
+  vitestSuite('engine, CLI and server tests (vitest)', 'vitest.config.ts'),
   angularSuite(),
+  // after the production build above: the built app, the real server and Debian's Chromium
+  vitestSuite('first screen in Chromium (vitest + playwright-core)', 'vitest.browser.config.ts'),
 ];
 const passed = tallies.reduce((s, t) => s + t.passed, 0);
 const failed = tallies.reduce((s, t) => s + t.failed, 0);
