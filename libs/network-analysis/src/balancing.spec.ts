@@ -7,7 +7,7 @@ import { leastChangeBalance } from './least-change';
 import { createNetwork, networkFromJson, withFluxValues, type Network } from './network';
 import { mulberry32 } from './random';
 import { balancedWeb } from './testing/arbitraries';
-import { WebError } from './web-error';
+import { catchWebError } from './testing/catch-web-error';
 
 // Allesina & Bondavalli 2003, Ecol. Model. 165:221-229
 
@@ -41,16 +41,6 @@ const twoCompartments: Web = {
   ],
 };
 // flux order: a → b, import into a, respiration of a, respiration of b
-
-function catchError(run: () => unknown): WebError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof WebError) return error;
-    throw error;
-  }
-  throw new Error('expected a WebError');
-}
 
 describe('balancing (Allesina & Bondavalli 2003)', () => {
   it('input-based: keeps the import and a’s output fractions 2/3 and 1/3 (worked by hand)', () => {
@@ -129,7 +119,7 @@ describe('balancing (Allesina & Bondavalli 2003)', () => {
   it('holds pins it keeps and refuses pins it would move, naming the flux', () => {
     const network = createNetwork(twoCompartments);
     expect(balanceNetwork(network, { method: 'input', pinned: new Set([1]) }).z[0]).toBe(100);
-    const error = catchError(() => balanceNetwork(network, { method: 'input', pinned: new Set([0]) }));
+    const error = catchWebError(() => balanceNetwork(network, { method: 'input', pinned: new Set([0]) }));
     expect(error.kind).toBe('infeasible');
     expect(error.problems).toEqual([expect.stringMatching(/input-based method cannot hold the pinned flow "a" → "b" at 60/)]);
   });
@@ -151,7 +141,7 @@ describe('balancing (Allesina & Bondavalli 2003)', () => {
       respiration: [{ from: 'p', value: 80 }, { from: 'source', value: 1 }],
     };
     for (const method of ['input', 'output', 'average'] as const) {
-      const error = catchError(() => balanceNetwork(createNetwork(web), { method }));
+      const error = catchWebError(() => balanceNetwork(createNetwork(web), { method }));
       expect(error.kind).toBe('infeasible');
       expect(error.problems).toEqual([
         'compartment "sink" has no outputs (export, respiration or flow out) to carry its inputs',
@@ -175,7 +165,7 @@ describe('balancing (Allesina & Bondavalli 2003)', () => {
       exports: [],
       respiration: [{ from: 'p', value: 9 }, { from: 'l2', value: 1 }],
     };
-    expect(catchError(() => balanceNetwork(createNetwork(web), { method: 'output' })).problems).toEqual([
+    expect(catchWebError(() => balanceNetwork(createNetwork(web), { method: 'output' })).problems).toEqual([
       'compartment "l1" is not reached from any import',
       'compartment "l2" is not reached from any import',
     ]);

@@ -8,7 +8,7 @@ import { createNetwork, networkFromJson, withFluxValues, type Network } from './
 import { mulberry32 } from './random';
 import { generateWeb } from './testing/generated-web';
 import { balancedWeb } from './testing/arbitraries';
-import { WebError } from './web-error';
+import { catchWebError } from './testing/catch-web-error';
 
 /** A web unbalanced by multiplying some of its fluxes by factors between 0.5 and 2. */
 function perturbed(network: Network, seed: number, chance = 0.4): Network {
@@ -49,16 +49,6 @@ function oneCompartment(importValue: number, exports: { value: number; cv?: numb
   return createNetwork(web);
 }
 
-function catchError(run: () => unknown): WebError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof WebError) return error;
-    throw error;
-  }
-  throw new Error('expected a WebError');
-}
-
 describe('least-change balancing (weighted least squares, Vézina & Platt 1988, Mar. Ecol. Prog. Ser. 42:269-287)', () => {
   it('splits an imbalance in proportion to the variances (worked by hand)', () => {
     // import 100, respiration 80, cv 0.25: v = 625 and 400; z = r = (400·100 + 625·80) / 1025
@@ -91,7 +81,7 @@ describe('least-change balancing (weighted least squares, Vézina & Platt 1988, 
 
   it('refuses pins that no non-negative balance can meet, naming the compartments', () => {
     const alone = oneCompartment(100, [], { value: 150 });
-    const error = catchError(() => leastChangeBalance(alone, { pinned: new Set([0, 1]) }));
+    const error = catchWebError(() => leastChangeBalance(alone, { pinned: new Set([0, 1]) }));
     expect(error.kind).toBe('infeasible');
     expect(error.problems).toHaveLength(1);
     expect(error.problems[0]).toMatch(/"x".*give out 50 more than they take in/);
@@ -109,7 +99,7 @@ describe('least-change balancing (weighted least squares, Vézina & Platt 1988, 
       exports: [],
       respiration: [{ from: 'k', value: 10 }],
     });
-    const chainError = catchError(() => leastChangeBalance(chain, { pinned: new Set([1, 2]) }));
+    const chainError = catchWebError(() => leastChangeBalance(chain, { pinned: new Set([1, 2]) }));
     expect(chainError.kind).toBe('infeasible');
     expect(chainError.problems[0]).toMatch(/"j", "k".*take in 90 more/);
   });

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import { createNetwork, networkFromJson, parseWeb, toWeb } from './network';
 import { imbalances, requireAnalysable } from './balance-check';
-import { WebError } from './web-error';
 import { balancedWeb } from './testing/arbitraries';
+import { catchWebError } from './testing/catch-web-error';
 
 describe('network', () => {
   it('builds the Cone Spring matrices; sum of throughflows is 30,626 (Finn 1976, J. theor. Biol. 56:363-380)', () => {
@@ -29,26 +29,26 @@ describe('network', () => {
   it('names unknown compartments, duplicates and negative values', () => {
     const bad = structuredClone(cone) as typeof cone;
     bad.flows.push({ from: 'plants', to: 'fish', value: 1 }, { from: 'plants', to: 'detritus', value: 2 });
-    const error = catchError(() => networkFromJson(bad));
+    const error = catchWebError(() => networkFromJson(bad));
     expect(error.problems).toContain('flows[8]: unknown compartment "fish"');
     expect(error.problems.some((p) => p.startsWith('flows[9]: duplicate flow plants → detritus'))).toBe(true);
     const negative = structuredClone(cone) as typeof cone;
     negative.flows[0].value = -1;
-    expect(catchError(() => parseWeb(negative)).problems).toEqual(['flows[0].value: flow value must not be negative']);
+    expect(catchWebError(() => parseWeb(negative)).problems).toEqual(['flows[0].value: flow value must not be negative']);
   });
 
   it('refuses unknown keys and unknown kinds', () => {
     const extra = { ...structuredClone(cone), colour: 'red' };
-    expect(catchError(() => parseWeb(extra)).message).toMatch(/colour/);
+    expect(catchWebError(() => parseWeb(extra)).message).toMatch(/colour/);
     const kind = structuredClone(cone) as typeof cone;
     kind.compartments[0].kind = 'plant';
-    expect(catchError(() => parseWeb(kind)).message).toMatch(/compartments\[0\]\.kind/);
+    expect(catchWebError(() => parseWeb(kind)).message).toMatch(/compartments\[0\]\.kind/);
   });
 
   it('reports each unbalanced compartment with its imbalance', () => {
     const web = structuredClone(cone) as typeof cone;
     web.imports[0].value = 11284;
-    const error = catchError(() => requireAnalysable(networkFromJson(web)));
+    const error = catchWebError(() => requireAnalysable(networkFromJson(web)));
     expect(error.kind).toBe('unbalanced');
     expect(error.problems).toHaveLength(1);
     expect(error.problems[0]).toMatch(/"plants".*differ by 100/);
@@ -73,18 +73,9 @@ describe('network', () => {
       respiration: [],
     };
     // a → b is not balanced either; make the loop itself balanced and the exit missing
-    const error = catchError(() => requireAnalysable(networkFromJson({ ...web, flows: web.flows.slice(1), imports: [{ to: 'a', value: 1 }], respiration: [{ from: 'a', value: 1 }] })));
+    const error = catchWebError(() => requireAnalysable(networkFromJson({ ...web, flows: web.flows.slice(1), imports: [{ to: 'a', value: 1 }], respiration: [{ from: 'a', value: 1 }] })));
     expect(error.kind).toBe('closed');
     expect(error.message).toMatch(/"b", "c"/);
   });
 });
 
-function catchError(run: () => unknown): WebError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof WebError) return error;
-    throw error;
-  }
-  throw new Error('expected a WebError');
-}

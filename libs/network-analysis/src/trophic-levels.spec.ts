@@ -4,19 +4,9 @@ import cone from '../../../tests/fixtures/cone-spring.json';
 import { createNetwork, networkFromJson } from './network';
 import { internalDiet, trophicLevels } from './trophic-levels';
 import { balancedWeb } from './testing/arbitraries';
-import { WebError } from './web-error';
+import { catchWebError } from './testing/catch-web-error';
 
 const TOLERANCE = 1e-9;
-
-function catchError(run: () => unknown): WebError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof WebError) return error;
-    throw error;
-  }
-  throw new Error('expected a WebError');
-}
 
 /** Producer p (import 100) feeding consumer a; consumer b eats a and also takes an import. */
 function withConsumerImport(): Web {
@@ -130,7 +120,7 @@ describe('trophicLevels', () => {
       { from: 'b', to: 'a', value: 10 },
     ];
     web.imports = [{ to: 'p', value: 60 }, { to: 'a', value: 30 }, { to: 'b', value: 40 }];
-    const error = catchError(() => trophicLevels(createNetwork(web)));
+    const error = catchWebError(() => trophicLevels(createNetwork(web)));
     expect(error.kind).toBe('invalid');
     expect(error.problems[0]).toMatch(/"a", "b"/);
   });
@@ -138,7 +128,7 @@ describe('trophicLevels', () => {
   it('refuses an unbalanced web', () => {
     const web = structuredClone(cone) as Web;
     web.imports[0].value = 20000;
-    expect(catchError(() => trophicLevels(createNetwork(web))).kind).toBe('unbalanced');
+    expect(catchWebError(() => trophicLevels(createNetwork(web))).kind).toBe('unbalanced');
   });
 
   it('satisfies TL_j = 1 + Σ_i g\'_ij TL_i for consumers, level 1 elsewhere, on generated webs', () => {
