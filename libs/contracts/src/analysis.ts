@@ -78,6 +78,8 @@ export interface NexusRow {
 
 export interface Analysis extends ScalarIndicators {
   unit: string;
+  /** Finn's secondary form TST_c / (TST − TST_c): cycled against straight-through throughflow (Finn 1976). */
+  finnCycledToStraightRatio: number;
   overheadParts: { imports: number; exports: number; respiration: number; redundancy: number };
   fitness: {
     relativeAscendency: number;

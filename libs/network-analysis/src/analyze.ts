@@ -41,6 +41,7 @@ export function analyze(network: Network, options: AnalyzeOptions = {}): Analysi
   return {
     ...scalarsFrom(network, information, cycling.finnCyclingIndex, fishery),
     unit: network.unit,
+    finnCycledToStraightRatio: cycling.cycledToStraightRatio,
     overheadParts: information.overheadParts,
     fitness: fitnessPosition(information.relativeAscendency),
     totalCatchTonnes: fishery.totalTonnes,
