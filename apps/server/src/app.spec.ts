@@ -90,6 +90,20 @@ describe('server', () => {
       expect(again.uncertainty).toEqual(first.uncertainty);
     });
 
+    it('streams progress lines, then the same result, when asked for NDJSON', async () => {
+      const option = { ...newDetritivoreFishery, uncertainty: { draws: 30, cv: 0.1, seed: 11 } };
+      const body = JSON.stringify({ web: cone, option });
+      const plain = await json(await post('/api/options/run', body));
+      const streamed = await post('/api/options/run', body, { accept: 'application/x-ndjson' });
+      expect(streamed.headers.get('content-type')).toMatch(/^application\/x-ndjson/);
+      const lines = (await streamed.text()).trim().split('\n').map((l) => JSON.parse(l));
+      const progress = lines.slice(0, -1).map((l) => l.progress);
+      expect(progress.length).toBeGreaterThan(1);
+      expect(progress.map((p: { done: number }) => p.done)).toEqual([...progress.map((p: { done: number }) => p.done)].sort((a, b) => a - b));
+      expect(progress.at(-1)).toEqual({ done: 30, total: 30 });
+      expect(lines.at(-1).result).toEqual(plain);
+    });
+
     it('answers 422 naming an adjustment the web cannot take', async () => {
       const option = { name: 'x', adjustments: [{ type: 'close-fleet', fleet: 'nobody' }] };
       const response = await post('/api/options/run', JSON.stringify({ web: cone, option }));

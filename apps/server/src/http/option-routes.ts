@@ -13,6 +13,9 @@ import { RequestError } from './errors';
 /** A request holds a connection open while it draws: larger studies belong to a background job. */
 export const MAX_DRAWS_PER_REQUEST = 5_000;
 
+/** Asked for with `Accept: application/x-ndjson`: progress lines while the draws run. */
+const NDJSON = 'application/x-ndjson';
+
 const runBody = z.strictObject({ web: z.unknown(), option: z.unknown() });
 const sensitivityBody = z.strictObject({ web: z.unknown(), response: responseRuleSchema.default('bottom-up') });
 
@@ -38,8 +41,26 @@ export function optionRoutes(settings: OptionRouteSettings = {}): Router {
       response.json(run);
       return;
     }
-    const uncertainty = await optionUncertainty(web, option, option.uncertainty, settings.drawPool ? { pool: settings.drawPool } : { workers: 0 });
-    response.json({ ...run, uncertainty });
+    const where = settings.drawPool ? { pool: settings.drawPool } : { workers: 0 };
+    if (!request.get('accept')?.includes(NDJSON)) {
+      response.json({ ...run, uncertainty: await optionUncertainty(web, option, option.uncertainty, where) });
+      return;
+    }
+    // Progress for a long run: one JSON line per finished chunk of draws, then the result. The
+    // input was checked above, so once the stream has begun only a server fault can end it early.
+    response.status(200).type(NDJSON);
+    const line = (value: unknown) => response.write(`${JSON.stringify(value)}\n`);
+    try {
+      const uncertainty = await optionUncertainty(web, option, option.uncertainty, {
+        ...where,
+        onProgress: (done, total) => line({ progress: { done, total } }),
+      });
+      line({ result: { ...run, uncertainty } });
+    } catch (error) {
+      console.error(error);
+      line({ error: 'Something went wrong on the server while drawing' });
+    }
+    response.end();
   });
 
   router.post('/sensitivity', (request, response) => {
