@@ -1,5 +1,6 @@
 import fc from 'fast-check';
-import { createNetwork, isBalanced, WebError, type Network } from '@seinework/network-analysis';
+import { createNetwork, isBalanced, requireAnalysable, WebError, type Network } from '@seinework/network-analysis';
+import { anyStructureWeb } from '../../network-analysis/src/testing/arbitraries';
 import type { Adjustment, ResponseRule } from '@seinework/contracts';
 import { applyOption } from './apply-option';
 import { planOption } from './option-web';
@@ -63,6 +64,40 @@ describe('applyOption', () => {
         expect(applyOption(baseline, { response: 'least-change', adjustments: [] })).toBe(baseline);
       }),
       { numRuns: 10 },
+    );
+  });
+});
+
+describe('applyOption on webs of any structure and any adjustments', () => {
+  // Fleets A and B and compartments c0…c6 exist in some webs and not in others, so unknown names,
+  // contradictions, impossible catches and structural dead ends all come up.
+  const adjustment: fc.Arbitrary<Adjustment> = fc.oneof(
+    fc.record({ type: fc.constant('scale-catch' as const), fleet: fc.constantFrom('A', 'B', 'C'), compartment: fc.constantFrom('c0', 'c1', 'c2', 'c6'), percent: fc.double({ min: -100, max: 500, noNaN: true }) }),
+    fc.record({ type: fc.constant('set-catch' as const), fleet: fc.constantFrom('A', 'B'), compartment: fc.constantFrom('c0', 'c1', 'c3'), amount: fc.double({ min: 0, max: 1e4, noNaN: true }) }),
+    fc.record({ type: fc.constant('close-fleet' as const), fleet: fc.constantFrom('A', 'B', 'C') }),
+    fc.record({ type: fc.constant('open-fishery' as const), fleet: fc.constantFrom('A', 'N'), compartment: fc.constantFrom('c0', 'c1', 'c4'), amount: fc.double({ min: 0, max: 1e3, noNaN: true }) }),
+    fc.record({ type: fc.constant('scale-production' as const), compartment: fc.constantFrom('c0', 'c2'), percent: fc.double({ min: -100, max: 300, noNaN: true }) }),
+  );
+  const plausible = fc.oneof(fc.constant(0), fc.double({ min: 1e-3, max: 1e4, noNaN: true }));
+
+  it.each(['bottom-up', 'least-change'] as const)('%s: a balanced, non-negative web meeting every target, or a WebError naming the problem', (response) => {
+    fc.assert(
+      fc.property(anyStructureWeb(plausible), fc.array(adjustment, { maxLength: 4 }), (web, adjustments) => {
+        let baseline: Network;
+        try {
+          baseline = createNetwork(web);
+          requireAnalysable(baseline);
+        } catch {
+          return; // the analysis engine's own refusals are tested there
+        }
+        try {
+          checkOption(baseline, adjustments, response);
+        } catch (error) {
+          expect(error, String(error)).toBeInstanceOf(WebError);
+          expect((error as WebError).problems.length).toBeGreaterThan(0);
+        }
+      }),
+      { numRuns: 300 },
     );
   });
 });

@@ -3,7 +3,8 @@ import { SCALAR_INDICATORS, type Analysis, type Web } from '@seinework/contracts
 import cone from '../../../tests/fixtures/cone-spring.json';
 import { analyzeWeb } from './analyze';
 import { mulberry32 } from './random';
-import { balancedWeb } from './testing/arbitraries';
+import { anyStructureWeb, balancedWeb } from './testing/arbitraries';
+import { WebError } from './web-error';
 
 /**
  * The composed analysis (METHODS.md §11) must not depend on how compartments are named or listed,
@@ -104,5 +105,38 @@ describe('analyze', () => {
     const analysis = analyzeWeb(cone);
     expect(analysis.finnCycledToStraightRatio).toBeCloseTo(2815.7 / (30626 - 2815.7), 4);
     expect(analysis.finnCycledToStraightRatio).toBeCloseTo(analysis.finnCyclingIndex / (1 - analysis.finnCyclingIndex), 12);
+  });
+});
+
+/** Either an analysis or a WebError with at least one readable problem: what lets the server answer 4xx, never 500. */
+function analyseOrRefuse(web: Web): Analysis | null {
+  try {
+    return analyzeWeb(web, options);
+  } catch (error) {
+    expect(error, String(error)).toBeInstanceOf(WebError);
+    expect((error as WebError).problems.length).toBeGreaterThan(0);
+    return null;
+  }
+}
+
+describe('analyze on webs of any structure', () => {
+  it('never fails with anything but a WebError, whatever the numbers (zeros, subnormals, 1e300)', () => {
+    const anyNumber = fc.oneof(fc.constant(0), fc.constant(Number.MIN_VALUE), fc.double({ min: 0, max: 1e300, noNaN: true }));
+    fc.assert(fc.property(anyStructureWeb(anyNumber), (web) => void analyseOrRefuse(web)), { numRuns: 300 });
+  });
+
+  it('gives finite scalar indicators for every web it accepts with flows between 1e-6 and 1e6', () => {
+    const plausible = fc.oneof(fc.constant(0), fc.double({ min: 1e-6, max: 1e6, noNaN: true }));
+    fc.assert(
+      fc.property(anyStructureWeb(plausible), (web) => {
+        const analysis = analyseOrRefuse(web);
+        if (analysis === null) return;
+        for (const key of SCALAR_INDICATORS) {
+          const value = analysis[key];
+          if (value !== null) expect(Number.isFinite(value), key).toBe(true);
+        }
+      }),
+      { numRuns: 300 },
+    );
   });
 });

@@ -42,5 +42,5 @@ function diagonalOfM(network: Network): number[] {
   const { T, throughflow } = network;
   // A compartment with no throughflow passes nothing on: its row of F is zero.
   const F = T.map((row, i) => row.map((t) => (throughflow[i] > 0 ? t / throughflow[i] : 0)));
-  return inverseOfIdentityMinus(F).map((row, i) => row[i]);
+  return inverseOfIdentityMinus(F, 'the Finn cycling index, M = (I − F)⁻¹').map((row, i) => row[i]);
 }

@@ -88,7 +88,7 @@ export function primaryProductionIntensity(network: Network): (number | null)[] 
   // x_j = ε_j (T_j − r_j) solves x = (I − F'ᵀ)⁻¹ w with F'_ij = T_ij / (T_i − r_i).
   const FT = kept.map((j) => kept.map((i, a) => T[i][j] / output[a]));
   const w = kept.map((j) => (kinds[j] === 'producer' ? z[j] : 0));
-  const x = kept.length > 0 ? solve(identityMinus(FT), w) : [];
+  const x = kept.length > 0 ? solve(identityMinus(FT), w, 'primary production intensities') : [];
   const epsilon = new Array<number | null>(n).fill(null);
   kept.forEach((j, a) => (epsilon[j] = x[a] / output[a]));
   return epsilon;

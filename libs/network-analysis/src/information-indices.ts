@@ -83,13 +83,19 @@ function indicesOf(X: number[][]): InformationIndices {
   let developmentCapacity = 0;
   let ascendency = 0;
   const overheadParts: OverheadParts = { imports: 0, exports: 0, respiration: 0, redundancy: 0 };
+  // Sums of logarithms rather than logarithms of products and quotients: a product of two tiny
+  // marginals underflows to 0 (and a product of two huge ones overflows) long before any flow does.
+  const logTst = Math.log2(tst);
+  const logRow = rowSums.map((t) => (t > 0 ? Math.log2(t) : 0));
+  const logColumn = columnSums.map((t) => (t > 0 ? Math.log2(t) : 0));
   for (let i = 0; i < size; i++) {
     const row = X[i];
     for (let j = 0; j < size; j++) {
       const x = row[j];
       if (x <= 0) continue;
-      const capacityTerm = -x * Math.log2(x / tst);
-      const ascendencyTerm = x * Math.log2((x * tst) / (rowSums[i] * columnSums[j]));
+      const logX = Math.log2(x);
+      const capacityTerm = -x * (logX - logTst);
+      const ascendencyTerm = x * (logX + logTst - logRow[i] - logColumn[j]);
       developmentCapacity += capacityTerm;
       ascendency += ascendencyTerm;
       // Row 0 holds only imports and columns n+1, n+2 only exits, so each entry has one home.

@@ -1,4 +1,4 @@
-import { isBalanced } from './balance-check';
+import { imbalances, isBalanced } from './balance-check';
 import { OUTSIDE, withFluxValues, type Network } from './network';
 import { WebError } from './web-error';
 
@@ -74,7 +74,17 @@ export function leastChangeBalance(network: Network, options: LeastChangeOptions
   problem.flux.forEach((k, m) => {
     values[k] = state.x[m];
   });
-  return withFluxValues(network, values);
+  const balanced = withFluxValues(network, values);
+  // The dual converges relative to the flux each compartment carried before; a compartment left
+  // carrying a tiny fraction of that (1e-17 of it, say) is balanced to that scale but not to its own.
+  const left = imbalances(balanced);
+  if (left.length > 0) {
+    throw new WebError(
+      'infeasible',
+      left.map((c) => `least-change balancing cannot resolve compartment "${c.id}": its flows now differ in size from the rest by more than double precision can balance (inputs ${c.inputs}, outputs ${c.outputs})`),
+    );
+  }
+  return balanced;
 }
 
 function setUp(network: Network, defaultCv: number, pinned: ReadonlySet<number>): Problem {

@@ -1,4 +1,5 @@
 import { LuDecomposition, Matrix } from 'ml-matrix';
+import { WebError } from './web-error';
 
 /**
  * The few dense linear-algebra operations the methods need, on ml-matrix.
@@ -16,12 +17,23 @@ export function identityMinus(a: number[][]): Matrix {
   return m;
 }
 
-/** x with A x = b; throws if A is singular (callers check structure first and name compartments). */
-export function solve(a: Matrix, b: number[]): number[] {
+/**
+ * Callers check a web's structure first and name the compartments at fault; what still reaches
+ * this is numerical: flows so small or so far apart that double precision cannot resolve the
+ * system. It is refused as bad input, saying which system failed.
+ */
+function singular(system: string): WebError {
+  return new WebError('infeasible', [
+    `the linear system for ${system} is singular in double precision: some flows are too small or too far apart in size to resolve`,
+  ]);
+}
+
+/** x with A x = b; `system` names what is being solved for, in the refusal. */
+export function solve(a: Matrix, b: number[], system = 'this analysis'): number[] {
   const lu = new LuDecomposition(a);
-  if (lu.isSingular()) throw new Error('singular matrix');
+  if (lu.isSingular()) throw singular(system);
   const x = lu.solve(Matrix.columnVector(b)).getColumn(0);
-  if (!x.every(Number.isFinite)) throw new Error('singular matrix');
+  if (!x.every(Number.isFinite)) throw singular(system);
   return x;
 }
 
@@ -32,7 +44,7 @@ export function solve(a: Matrix, b: number[]): number[] {
  * several times faster than ml-matrix's `inverse` at the web sizes councils use (see
  * `npm run bench`). linear-algebra.spec.ts cross-checks it against mathjs.
  */
-export function inverseOfIdentityMinus(a: number[][]): number[][] {
+export function inverseOfIdentityMinus(a: number[][], system = 'this analysis'): number[][] {
   const n = a.length;
   const m = new Float64Array(n * n);
   for (let i = 0; i < n; i++) {
@@ -47,7 +59,7 @@ export function inverseOfIdentityMinus(a: number[][]): number[][] {
       const size = Math.abs(m[i * n + k]);
       if (size > largest) (largest = size), (pivotRow = i);
     }
-    if (!(largest > 0) || !Number.isFinite(largest)) throw new Error('singular matrix');
+    if (!(largest > 0) || !Number.isFinite(largest)) throw singular(system);
     swappedWith[k] = pivotRow;
     if (pivotRow !== k) swapRows(m, n, k, pivotRow);
     const pivotStart = k * n;
@@ -78,7 +90,7 @@ export function inverseOfIdentityMinus(a: number[][]): number[][] {
   const result: number[][] = new Array(n);
   for (let i = 0; i < n; i++) {
     const row = Array.from(m.subarray(i * n, (i + 1) * n));
-    for (const value of row) if (!Number.isFinite(value)) throw new Error('singular matrix');
+    for (const value of row) if (!Number.isFinite(value)) throw singular(system);
     result[i] = row;
   }
   return result;

@@ -59,7 +59,7 @@ export interface Dependencies {
 export function dependencies(network: Network): Dependencies {
   requireAnalysable(network);
   const { n, throughflow } = network;
-  const N = inverseOfIdentityMinus(dietMatrix(network));
+  const N = inverseOfIdentityMinus(dietMatrix(network), 'dependencies, N = (I − G)⁻¹');
   // A compartment with no throughflow has neither diet nor donor fractions; any nonzero scale fits.
   const D = throughflow.map((t) => (t === 0 ? 1 : t));
   const allPathway = zeros(n, n);

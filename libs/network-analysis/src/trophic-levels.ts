@@ -63,7 +63,7 @@ export function trophicLevels(network: Network): TrophicLevels {
     for (let i = 0; i < n; i++) if (!position.has(i)) sum += g[i][j] * levels[i];
     return sum;
   });
-  const solved = fed.length > 0 ? solve(identityMinus(gT), b) : [];
+  const solved = fed.length > 0 ? solve(identityMinus(gT), b, 'trophic levels') : [];
   fed.forEach((j, k) => (levels[j] = solved[k]));
   return { levels, warnings };
 }

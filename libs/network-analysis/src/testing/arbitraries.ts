@@ -12,3 +12,41 @@ export function balancedWeb(options: { min?: number; max?: number; cycles?: bool
     })
     .map((o) => generateWeb({ ...o, cycles: options.cycles }));
 }
+
+/**
+ * Balanced webs of any structure: random kinds and links (isolated compartments, consumers with no
+ * food, detritus with no exit, closed loops), balanced by adding respiration or an import wherever
+ * inputs and outputs differ. `value` draws every flow, import and catch.
+ */
+export function anyStructureWeb(value: fc.Arbitrary<number>): fc.Arbitrary<Web> {
+  return fc
+    .record({
+      kinds: fc.array(fc.constantFrom('producer', 'consumer', 'detritus'), { minLength: 1, maxLength: 7 }),
+      links: fc.array(fc.tuple(fc.nat(6), fc.nat(6), value), { maxLength: 20 }),
+      imports: fc.array(fc.tuple(fc.nat(6), value), { maxLength: 4 }),
+      fleets: fc.array(fc.tuple(fc.nat(6), fc.constantFrom('A', 'B'), value), { maxLength: 3 }),
+    })
+    .map(({ kinds, links, imports, fleets }): Web => {
+      const n = kinds.length;
+      const id = (i: number) => `c${i % n}`;
+      const flows = new Map<string, { from: string; to: string; value: number }>();
+      for (const [from, to, v] of links) if (from % n !== to % n) flows.set(`${id(from)}>${id(to)}`, { from: id(from), to: id(to), value: v });
+      const web: Web = {
+        name: 'fuzz',
+        unit: 'u',
+        compartments: kinds.map((kind, i) => ({ id: id(i), name: `C${i}`, kind })),
+        flows: [...flows.values()],
+        imports: imports.map(([to, v]) => ({ to: id(to), value: v })),
+        exports: [...new Map(fleets.map(([from, fleet, v]) => [`${id(from)}/${fleet}`, { from: id(from), value: v, fleet }])).values()],
+        respiration: [],
+      };
+      const sum = (values: { value: number }[]) => values.reduce((s, v) => s + v.value, 0);
+      for (let i = 0; i < n; i++) {
+        const inputs = sum(web.imports.filter((f) => f.to === id(i))) + sum(web.flows.filter((f) => f.to === id(i)));
+        const outputs = sum(web.exports.filter((f) => f.from === id(i))) + sum(web.flows.filter((f) => f.from === id(i)));
+        if (inputs > outputs) web.respiration.push({ from: id(i), value: inputs - outputs });
+        else if (outputs > inputs) web.imports.push({ to: id(i), value: outputs - inputs });
+      }
+      return web;
+    });
+}
