@@ -1,6 +1,7 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { resolve } from 'node:path';
+import fc from 'fast-check';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import demo from '../../../seeds/brannock-bay.json';
 import { createApp } from './app';
@@ -132,6 +133,37 @@ describe('server', () => {
       expect(body.rows).toHaveLength(demo.exports.filter((e) => 'fleet' in e).length);
       const toward = body.byRobustness.map((row: { distanceFromPeakChange: number }) => row.distanceFromPeakChange);
       expect(toward).toEqual([...toward].sort((a, b) => a - b));
+    });
+  });
+
+  describe('bad input never gets a 500', () => {
+    // any JSON at all, and Cone Spring or the demo option with one part replaced by any JSON
+    const anyJson = fc.jsonValue({ maxDepth: 3 });
+    const brokenWeb = fc.tuple(fc.constantFrom('name', 'unit', 'compartments', 'flows', 'imports', 'exports', 'respiration', 'areaKm2', 'extra'), anyJson)
+      .map(([key, value]) => ({ ...cone, [key]: value }));
+    const brokenFlow = fc.tuple(fc.nat(cone.flows.length - 1), fc.constantFrom('from', 'to', 'value', 'cv', 'fleet'), anyJson)
+      .map(([k, key, value]) => ({ ...cone, flows: cone.flows.map((f, i) => (i === k ? { ...f, [key]: value } : f)) }));
+    const brokenOption = fc.tuple(fc.constantFrom('name', 'response', 'adjustments', 'uncertainty'), anyJson)
+      .map(([key, value]) => ({ name: 'x', adjustments: [{ type: 'scale-catch', fleet: 'net', compartment: 'carnivores', percent: 10 }], [key]: value }));
+
+    const answersClearly = async (path: string, body: unknown) => {
+      const response = await post(path, JSON.stringify(body));
+      expect(response.status, JSON.stringify(body)).not.toBe(500);
+      if (response.status >= 400) expect(typeof (await json(response)).error).toBe('string');
+    };
+
+    it('POST /api/analyses', async () => {
+      await fc.assert(fc.asyncProperty(fc.oneof(anyJson, brokenWeb, brokenFlow), (body) => answersClearly('/api/analyses', body)), { numRuns: 150 });
+    });
+
+    it('POST /api/options/run and /api/options/sensitivity', async () => {
+      const bodies = fc.oneof(
+        anyJson,
+        fc.record({ web: fc.oneof(brokenWeb, brokenFlow), option: brokenOption }),
+        fc.record({ web: fc.constant(cone), option: brokenOption }),
+      );
+      await fc.assert(fc.asyncProperty(bodies, (body) => answersClearly('/api/options/run', body)), { numRuns: 150 });
+      await fc.assert(fc.asyncProperty(fc.oneof(anyJson, fc.record({ web: fc.oneof(brokenWeb, brokenFlow), response: anyJson })), (body) => answersClearly('/api/options/sensitivity', body)), { numRuns: 100 });
     });
   });
 });
