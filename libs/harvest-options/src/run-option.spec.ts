@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import type { HarvestOption, Web } from '@seinework/contracts';
 import { createNetwork, isBalanced, WebError } from '@seinework/network-analysis';
@@ -23,6 +24,28 @@ describe('runOption', () => {
     expect(flow.value).toBeCloseTo(353.881, 3);
     expect(run.web.exports.at(-1)).toEqual({ from: 'detritivores', value: 100, fleet: 'net' });
     expect(isBalanced(createNetwork(run.web))).toBe(true);
+  });
+
+  it('adds Fishing-in-Balance of the option against the baseline, for the whole catch and per fleet (Pauly, Christensen & Walters 2000)', () => {
+    const bay = JSON.parse(readFileSync(new URL('../../../seeds/brannock-bay.json', import.meta.url), 'utf8')) as Web;
+    const run = runOption(bay, option([{ type: 'scale-catch', fleet: 'Purse seine', compartment: 'forage-fish', percent: -40 }]), { cycles: false });
+    const expected = (y: number, tl: number, y0: number, tl0: number) => Math.log10(y) + tl - (Math.log10(y0) + tl0); // TE = 0.1: log10(1/TE) = 1
+    expect(run.difference.fishingInBalance).toBeCloseTo(
+      expected(run.option.totalCatch, run.option.meanTrophicLevelOfCatch!, run.baseline.totalCatch, run.baseline.meanTrophicLevelOfCatch!),
+      12,
+    );
+    // a cut lands less of a low-level stock: catch falls by more than the rise in mean level makes up for
+    expect(run.difference.fishingInBalance).toBeLessThan(0);
+    const fleets = run.difference.fleets as Record<string, { fishingInBalance: number | null }>;
+    for (const [name, after] of Object.entries(run.option.fleets)) {
+      const before = run.baseline.fleets[name];
+      expect(fleets[name].fishingInBalance).toBeCloseTo(expected(after.catch, after.meanTrophicLevelOfCatch!, before.catch, before.meanTrophicLevelOfCatch!), 12);
+    }
+    // the purse seine lands 60 % of its catch, of forage fish whose level shifts only slightly
+    expect(fleets['Purse seine'].fishingInBalance).toBeCloseTo(Math.log10(0.6), 2);
+    // a fleet that lands nothing on one side has no FiB
+    const closed = runOption(bay, option([{ type: 'close-fleet', fleet: 'Set gillnet' }]), { cycles: false });
+    expect((closed.difference.fleets as Record<string, { fishingInBalance: number | null }>)['Set gillnet'].fishingInBalance).toBeNull();
   });
 
   it('an option with no adjustments returns the baseline web unchanged and a zero difference', () => {
