@@ -36,6 +36,7 @@ describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
             expect(u.robust).toBe(d !== 0);
           }
         }
+        expect(summary.robustDifferences).toEqual(SCALAR_INDICATORS.filter((key) => summary.indicators[key].robust));
       }),
       { numRuns: 10 },
     );

@@ -46,6 +46,8 @@ export interface UncertaintySummary {
   readonly cv: number;
   readonly seed: number;
   readonly indicators: Record<ScalarKey, IndicatorUncertainty>;
+  /** The indicators whose difference is robust (same sign in at least 90 % of draws), in §11 order. */
+  readonly robustDifferences: ScalarKey[];
 }
 
 export interface UncertaintyRunOptions {
@@ -158,6 +160,7 @@ export function summarise(outcomes: readonly DrawOutcome[], settings: Uncertaint
     cv: settings.cv,
     seed: settings.seed,
     indicators,
+    robustDifferences: SCALAR_INDICATORS.filter((key) => indicators[key].robust),
   };
 }
 
