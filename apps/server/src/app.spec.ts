@@ -4,7 +4,9 @@ import { resolve } from 'node:path';
 import fc from 'fast-check';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import demo from '../../../seeds/brannock-bay.json';
+import { generateWeb } from '../../../libs/network-analysis/src/testing/generated-web';
 import { createApp } from './app';
+import { HTTP_CYCLE_LIMITS } from './http/cycle-limits';
 
 let server: Server;
 let base: string;
@@ -37,6 +39,21 @@ describe('server', () => {
     const response = await post('/api/analyses', JSON.stringify(cone));
     expect(response.status).toBe(200);
     expect((await json(response)).tst).toBeCloseTo(42445, 6);
+  });
+
+  it('caps cycle enumeration for a dense web and says so, the cycled and acyclic flows still complete', async () => {
+    const dense = generateWeb({ compartments: 40, seed: 3, density: 0.6 });
+    const response = await post('/api/analyses', JSON.stringify(dense));
+    expect(response.status).toBe(200);
+    const { cycles } = await json(response);
+    expect(cycles.capped).toBe(true);
+    expect(cycles.count).toBeLessThanOrEqual(HTTP_CYCLE_LIMITS.maxCycles!);
+    // acyclic + cycled = original on every flow (METHODS.md §5)
+    for (const flow of dense.flows) {
+      const acyclic = cycles.acyclicFlow[flow.from]?.[flow.to] ?? 0;
+      const cycled = cycles.cycledFlow[flow.from]?.[flow.to] ?? 0;
+      expect(acyclic + cycled).toBeCloseTo(flow.value, 6);
+    }
   });
 
   it('answers 400 to a body that is not JSON', async () => {

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { describeIssues, responseRuleSchema } from '@seinework/contracts';
 import { harvestSensitivity, optionUncertainty, parseHarvestOption, runOption, type DrawPool } from '@seinework/harvest-options';
 import { createNetwork, parseWeb } from '@seinework/network-analysis';
+import { HTTP_CYCLE_LIMITS } from './cycle-limits';
 import { RequestError } from './errors';
 
 /**
@@ -36,7 +37,7 @@ export function optionRoutes(settings: OptionRouteSettings = {}): Router {
         `option: uncertainty.draws: at most ${MAX_DRAWS_PER_REQUEST} draws per request (asked for ${option.uncertainty.draws})`,
       ]);
     }
-    const run = runOption(web, option);
+    const run = runOption(web, option, { cycles: HTTP_CYCLE_LIMITS });
     if (!option.uncertainty) {
       response.json(run);
       return;
