@@ -1,5 +1,6 @@
 import type { Adjustment } from '@seinework/contracts';
-import { applyOption, createDrawPool, harvestSensitivity, optionUncertainty } from '@seinework/harvest-options';
+import { createDrawPool } from '@seinework/draw-pool';
+import { applyOption, harvestSensitivity, optionUncertainty } from '@seinework/harvest-options';
 import { createNetwork } from '@seinework/network-analysis';
 import { generateWeb } from '../libs/network-analysis/src/testing/generated-web';
 
@@ -56,7 +57,14 @@ export async function harvestBenchmarks(): Promise<HarvestBenchmark[]> {
   const pool = createDrawPool();
   const warm = await medianMs(() => optionUncertainty(web, option, settings, { pool }), 3);
   await pool.destroy();
-  const cold = await medianMs(() => optionUncertainty(web, option, settings), 1);
+  const cold = await medianMs(async () => {
+    const own = createDrawPool();
+    try {
+      return await optionUncertainty(web, option, settings, { pool: own });
+    } finally {
+      await own.destroy();
+    }
+  }, 1);
 
   return [
     { name: 'harvest option (bottom-up), 50 compartments', medianMs: await medianMs(() => applyOption(network, option), 21), target: '< 10 ms' },

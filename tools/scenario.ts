@@ -1,3 +1,4 @@
+import { createDrawPool } from '@seinework/draw-pool';
 import { parseHarvestOption, runOption, optionUncertainty } from '@seinework/harvest-options';
 import { parseWeb } from '@seinework/network-analysis';
 import { readJsonFile, runCommand } from './cli';
@@ -8,5 +9,11 @@ await runCommand('scenario', async () => {
   const option = parseHarvestOption(readJsonFile(process.argv[3], 'option'));
   const run = runOption(web, option);
   if (!option.uncertainty) return run;
-  return { ...run, uncertainty: await optionUncertainty(web, option, option.uncertainty) };
+  // draws on every core; the pool is started for this run only
+  const pool = createDrawPool();
+  try {
+    return { ...run, uncertainty: await optionUncertainty(web, option, option.uncertainty, { pool }) };
+  } finally {
+    await pool.destroy();
+  }
 });

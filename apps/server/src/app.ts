@@ -6,7 +6,7 @@ import { analysisRoutes } from './http/analysis-routes';
 import { errorHandler, RequestError } from './http/errors';
 import { optionRoutes } from './http/option-routes';
 import { originCheck } from './http/origin-check';
-import type { DrawPool } from '@seinework/harvest-options';
+import type { DrawRunner } from '@seinework/harvest-options';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
@@ -14,7 +14,7 @@ export interface AppSettings {
   /** Built browser app (dist/web/browser); omitted in API-only tests. */
   readonly staticDir?: string;
   /** Worker threads for uncertainty draws (the server's, started once); draws run in process without it. */
-  readonly drawPool?: DrawPool;
+  readonly drawPool?: DrawRunner;
 }
 
 export async function createApp(settings: AppSettings): Promise<Express> {

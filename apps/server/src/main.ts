@@ -1,5 +1,5 @@
 import { resolve } from 'node:path';
-import { createDrawPool } from '@seinework/harvest-options';
+import { createDrawPool } from '@seinework/draw-pool';
 import { createApp } from './app';
 
 const port = Number(process.env['PORT'] ?? 4300);

@@ -4,7 +4,7 @@ import { createNetwork, scalarIndicators, SCALAR_INDICATORS } from '@seinework/n
 import cone from '../../../tests/fixtures/cone-spring.json';
 import { applyOption } from './apply-option';
 import { drawSeed, lognormalDraw } from './uncertainty-draw';
-import { createDrawPool, optionUncertainty, quantile } from './uncertainty';
+import { optionUncertainty, quantile } from './uncertainty';
 import { webWithAdjustments } from './testing/option-arbitraries';
 
 const coneWeb = cone as Web;
@@ -22,7 +22,7 @@ describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
         const option = { response: 'bottom-up' as const, adjustments };
         const before = scalarIndicators(baseline);
         const after = scalarIndicators(applyOption(baseline, option));
-        const summary = await optionUncertainty(web, option, { draws: 5, cv: 0, seed: 1 }, { workers: 0 });
+        const summary = await optionUncertainty(web, option, { draws: 5, cv: 0, seed: 1 });
         expect(summary.failed).toBe(0);
         for (const key of SCALAR_INDICATORS) {
           const u = summary.indicators[key];
@@ -46,7 +46,7 @@ describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
     const baseline = createNetwork(coneWeb);
     const exact = scalarIndicators(applyOption(baseline, newFishery)).robustness - scalarIndicators(baseline).robustness;
     const error = async (cv: number) => {
-      const s = await optionUncertainty(coneWeb, newFishery, { draws: 41, cv, seed: 11 }, { workers: 0 });
+      const s = await optionUncertainty(coneWeb, newFishery, { draws: 41, cv, seed: 11 });
       return Math.abs(s.indicators.robustness.difference!.median - exact);
     };
     const [large, medium, small] = [await error(0.2), await error(0.02), await error(0.0002)];
@@ -55,31 +55,22 @@ describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
     expect(small).toBeLessThan(1e-3 * Math.abs(exact));
   });
 
-  it('is identical bit for bit on worker threads and in process, whatever the chunking or pool, and reports progress', async () => {
+  it('is identical bit for bit whatever the chunking, and reports progress after each chunk (worker threads: libs/draw-pool)', async () => {
     const settings = { draws: 24, cv: 0.15, seed: 2024 };
     const progress: [number, number][] = [];
-    const onWorkers = await optionUncertainty(coneWeb, newFishery, settings, { workers: 2, chunkSize: 5, onProgress: (done, total) => progress.push([done, total]) });
-    const inProcess = await optionUncertainty(coneWeb, newFishery, settings, { workers: 0, chunkSize: 24 });
-    expect(onWorkers).toEqual(inProcess);
-    expect(onWorkers.succeeded).toBe(24);
-    expect(progress).toHaveLength(5);
-    expect(progress.at(-1)).toEqual([24, 24]);
-    expect(progress.map(([done]) => done)).toEqual([...progress.map(([done]) => done)].sort((a, b) => a - b));
-    const pool = createDrawPool(2);
-    try {
-      expect(await optionUncertainty(coneWeb, newFishery, settings, { pool, chunkSize: 7 })).toEqual(inProcess);
-      expect(await optionUncertainty(coneWeb, newFishery, settings, { pool })).toEqual(inProcess);
-    } finally {
-      await pool.destroy();
-    }
-    const other = await optionUncertainty(coneWeb, newFishery, { ...settings, seed: 2025 }, { workers: 0 });
+    const inChunks = await optionUncertainty(coneWeb, newFishery, settings, { chunkSize: 5, onProgress: (done, total) => progress.push([done, total]) });
+    const inProcess = await optionUncertainty(coneWeb, newFishery, settings, { chunkSize: 24 });
+    expect(inChunks).toEqual(inProcess);
+    expect(inChunks.succeeded).toBe(24);
+    expect(progress).toEqual([[5, 24], [10, 24], [15, 24], [20, 24], [24, 24]]);
+    const other = await optionUncertainty(coneWeb, newFishery, { ...settings, seed: 2025 });
     expect(other.indicators.tst.baseline!.median).not.toBe(inProcess.indicators.tst.baseline!.median);
   });
 
   it('counts and reports draws in which the option cannot be met', async () => {
     // carnivores can land at most about 363.6 with everything else fixed; near it, some draws fail
     const option: HarvestOption = { ...newFishery, adjustments: [{ type: 'open-fishery', fleet: 'net', compartment: 'carnivores', amount: 355 }] };
-    const summary = await optionUncertainty(coneWeb, option, { draws: 30, cv: 0.1, seed: 3 }, { workers: 0 });
+    const summary = await optionUncertainty(coneWeb, option, { draws: 30, cv: 0.1, seed: 3 });
     expect(summary.failed).toBeGreaterThan(0);
     expect(summary.succeeded).toBeGreaterThan(0);
     expect(summary.failed + summary.succeeded).toBe(30);
@@ -88,7 +79,7 @@ describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
 
   it('refuses an invalid option before drawing', async () => {
     await expect(
-      optionUncertainty(coneWeb, { adjustments: [{ type: 'close-fleet', fleet: 'nobody' }] }, { draws: 3, cv: 0.1, seed: 1 }, { workers: 0 }),
+      optionUncertainty(coneWeb, { adjustments: [{ type: 'close-fleet', fleet: 'nobody' }] }, { draws: 3, cv: 0.1, seed: 1 }),
     ).rejects.toThrow(/adjustments\[0\] \(close-fleet "nobody"\): unknown fleet/);
   });
 });

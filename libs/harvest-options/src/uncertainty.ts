@@ -1,7 +1,3 @@
-import { availableParallelism } from 'node:os';
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Piscina } from 'piscina';
 import { SCALAR_INDICATORS, type ScalarIndicators, type UncertaintySettings, type Web } from '@seinework/contracts';
 import { createNetwork, requireAnalysable } from '@seinework/network-analysis';
 import type { OptionSpec } from './apply-option';
@@ -12,9 +8,10 @@ import { runDraws, type DrawJob, type DrawOutcome } from './uncertainty-draw';
  * Monte Carlo uncertainty of a harvest option (METHODS.md §8): many draws of the web within its
  * flows' cvs, each balanced by least change and run through the option, summarised per scalar
  * indicator as median and 5–95 % band of the baseline, the option and their difference, with the
- * share of draws in which the difference is positive. Draws run in chunks on a pool of worker threads
- * (piscina) or in process; results are identical bit for bit either way, since each draw's seed
- * depends only on (seed, draw index) and the summary is taken over draws in index order.
+ * share of draws in which the difference is positive. Draws run in chunks, in process or on a pool
+ * of worker threads handed in by the caller (libs/draw-pool, Node only: this module stays pure);
+ * results are identical bit for bit either way, since each draw's seed depends only on (seed, draw
+ * index) and the summary is taken over draws in index order.
  */
 
 export type ScalarKey = (typeof SCALAR_INDICATORS)[number];
@@ -50,11 +47,16 @@ export interface UncertaintySummary {
   readonly robustDifferences: ScalarKey[];
 }
 
+/** Runs chunks of draws elsewhere, e.g. on worker threads (libs/draw-pool). */
+export interface DrawRunner {
+  /** How many chunks it runs at once, for sizing chunks. */
+  readonly workers: number;
+  run(job: DrawJob): Promise<DrawOutcome[]>;
+}
+
 export interface UncertaintyRunOptions {
-  /** Worker threads; 0 runs every draw in this thread (default: one per core). Ignored when a pool is given. */
-  readonly workers?: number;
-  /** A long-lived pool (a server's), so that worker start-up is paid once; otherwise one is started and stopped. */
-  readonly pool?: DrawPool;
+  /** Where to run the chunks of draws; in this thread when omitted. */
+  readonly pool?: DrawRunner;
   /** Draws per chunk (default: about eight chunks per worker, at most 100 draws). */
   readonly chunkSize?: number;
   /** Called after each chunk with the number of draws done so far. */
@@ -74,8 +76,8 @@ export async function optionUncertainty(
   const network = createNetwork(web);
   requireAnalysable(network);
   planOption(network, option.adjustments);
-  const workers = options.pool ? options.pool.workers : Math.max(0, Math.floor(options.workers ?? availableParallelism()));
-  const chunkSize = Math.max(1, Math.floor(options.chunkSize ?? Math.min(100, Math.ceil(settings.draws / (8 * Math.max(1, workers))))));
+  const workers = Math.max(1, options.pool?.workers ?? 1);
+  const chunkSize = Math.max(1, Math.floor(options.chunkSize ?? Math.min(100, Math.ceil(settings.draws / (8 * workers)))));
   const jobs: DrawJob[] = [];
   for (let start = 0; start < settings.draws; start += chunkSize) {
     jobs.push({ web, option: { response: option.response, adjustments: option.adjustments }, cv: settings.cv, seed: settings.seed, start, end: Math.min(settings.draws, start + chunkSize) });
@@ -86,38 +88,9 @@ export async function optionUncertainty(
     options.onProgress?.(done, settings.draws);
     return outcomes;
   };
-  if (workers === 0) return summarise((await inProcess(jobs, finished)).flat(), settings);
-  const pool = options.pool ?? createDrawPool(workers);
-  try {
-    return summarise((await Promise.all(jobs.map(async (job) => finished(await pool.run(job))))).flat(), settings);
-  } finally {
-    if (!options.pool) await pool.destroy();
-  }
-}
-
-/** Worker threads running chunks of draws with the same engine as in process. */
-export interface DrawPool {
-  readonly workers: number;
-  run(job: DrawJob): Promise<DrawOutcome[]>;
-  destroy(): Promise<void>;
-}
-
-export function createDrawPool(workers = availableParallelism()): DrawPool {
-  const threads = Math.max(1, Math.floor(workers));
-  const pool = new Piscina({
-    filename: fileURLToPath(new URL('./uncertainty-worker.ts', import.meta.url)),
-    // the worker file is TypeScript: load it through tsx, in the tsx CLI and under vitest alike
-    execArgv: ['--import', pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href],
-    env: { ...process.env, TSX_TSCONFIG_PATH: process.env.TSX_TSCONFIG_PATH ?? fileURLToPath(new URL('../../../tsconfig.json', import.meta.url)) },
-    minThreads: threads,
-    maxThreads: threads,
-    idleTimeout: Infinity,
-  });
-  return {
-    workers: threads,
-    run: (job) => pool.run(job) as Promise<DrawOutcome[]>,
-    destroy: () => pool.destroy(),
-  };
+  const pool = options.pool;
+  if (!pool) return summarise((await inProcess(jobs, finished)).flat(), settings);
+  return summarise((await Promise.all(jobs.map(async (job) => finished(await pool.run(job))))).flat(), settings);
 }
 
 async function inProcess(jobs: DrawJob[], finished: (o: DrawOutcome[]) => DrawOutcome[]): Promise<DrawOutcome[][]> {

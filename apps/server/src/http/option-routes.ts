@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { describeIssues, responseRuleSchema } from '@seinework/contracts';
-import { harvestSensitivity, optionUncertainty, parseHarvestOption, runOption, type DrawPool } from '@seinework/harvest-options';
+import { harvestSensitivity, optionUncertainty, parseHarvestOption, runOption, type DrawRunner } from '@seinework/harvest-options';
 import { createNetwork, parseWeb } from '@seinework/network-analysis';
 import { HTTP_CYCLE_LIMITS } from './cycle-limits';
 import { RequestError } from './errors';
@@ -22,7 +22,7 @@ const sensitivityBody = z.strictObject({ web: z.unknown(), response: responseRul
 
 export interface OptionRouteSettings {
   /** Worker threads for uncertainty draws; without a pool draws run in the server's own thread. */
-  readonly drawPool?: DrawPool;
+  readonly drawPool?: DrawRunner;
 }
 
 export function optionRoutes(settings: OptionRouteSettings = {}): Router {
@@ -42,7 +42,7 @@ export function optionRoutes(settings: OptionRouteSettings = {}): Router {
       response.json(run);
       return;
     }
-    const where = settings.drawPool ? { pool: settings.drawPool } : { workers: 0 };
+    const where = { pool: settings.drawPool };
     if (!request.get('accept')?.includes(NDJSON)) {
       response.json({ ...run, uncertainty: await optionUncertainty(web, option, option.uncertainty, where) });
       return;

@@ -1,0 +1,2 @@
+/** Worker threads for uncertainty draws (Node only; the engine libs stay pure). */
+export * from './draw-pool';
