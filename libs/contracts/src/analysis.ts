@@ -65,6 +65,7 @@ export interface LadderLevelRow {
   passedOn: number;
   returnedToDetritus: number;
   respired: number;
+  /** Exports other than harvest. */
   exported: number;
   harvested: number;
   /** passedOn / input; null where the level has no input. */

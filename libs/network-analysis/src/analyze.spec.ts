@@ -5,6 +5,7 @@ import { analyzeWeb } from './analyze';
 import { mulberry32 } from './random';
 import { anyStructureWeb, balancedWeb } from './testing/arbitraries';
 import { WebError } from './web-error';
+import { scaledWeb } from './testing/scaled-web';
 
 /**
  * The composed analysis (METHODS.md §11) must not depend on how compartments are named or listed,
@@ -35,16 +36,6 @@ function relabelled(web: Web, seed: number): { web: Web; rename: (id: string) =>
       exports: shuffle(web.exports).map((f) => ({ ...f, from: rename(f.from) })),
       respiration: shuffle(web.respiration).map((f) => ({ ...f, from: rename(f.from) })),
     },
-  };
-}
-
-function scaled(web: Web, k: number): Web {
-  return {
-    ...web,
-    flows: web.flows.map((f) => ({ ...f, value: f.value * k })),
-    imports: web.imports.map((f) => ({ ...f, value: f.value * k })),
-    exports: web.exports.map((f) => ({ ...f, value: f.value * k })),
-    respiration: web.respiration.map((f) => ({ ...f, value: f.value * k })),
   };
 }
 
@@ -87,7 +78,7 @@ describe('analyze', () => {
     fc.assert(
       fc.property(balancedWeb({ max: 14 }), fc.double({ min: 0.01, max: 100, noNaN: true }), (web, k) => {
         const before = analyzeWeb(web, options);
-        const after: Analysis = analyzeWeb(scaled(web, k), options);
+        const after: Analysis = analyzeWeb(scaledWeb(web, k), options);
         for (const key of scaledBy) expectClose(after[key], before[key] * k, key);
         for (const key of unchanged) expectClose(after[key], before[key], key);
         for (const c of web.compartments) {

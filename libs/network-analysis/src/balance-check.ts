@@ -1,5 +1,6 @@
 import type { Network } from './network';
 import { WebError } from './web-error';
+import { upstreamOf } from './reachability';
 
 /**
  * Balance (METHODS.md §0): inputs z_j + Σ_i T_ij equal outputs e_j + r_j + Σ_k T_jk for every
@@ -59,23 +60,7 @@ export function requireAnalysable(network: Network): void {
 
 /** Compartments with throughflow that cannot reach any export or respiration along positive flows. */
 export function compartmentsWithoutExit(network: Network): string[] {
-  const { n, T, e, r, throughflow } = network;
-  const reaches = new Array<boolean>(n).fill(false);
-  const stack: number[] = [];
-  for (let i = 0; i < n; i++) {
-    if (e[i] + r[i] > 0) {
-      reaches[i] = true;
-      stack.push(i);
-    }
-  }
-  while (stack.length > 0) {
-    const j = stack.pop()!;
-    for (let i = 0; i < n; i++) {
-      if (!reaches[i] && T[i][j] > 0) {
-        reaches[i] = true;
-        stack.push(i);
-      }
-    }
-  }
-  return network.ids.filter((_, i) => !reaches[i] && throughflow[i] > 0);
+  const { T, e, r, throughflow } = network;
+  const drained = upstreamOf(T, e.map((ei, i) => ei + r[i] > 0));
+  return network.ids.filter((_, i) => !drained[i] && throughflow[i] > 0);
 }

@@ -3,6 +3,7 @@ import { identityMinus, solve, transpose } from './linear-algebra';
 import { leastChangeBalance } from './least-change';
 import { OUTSIDE, withFluxValues, type Flux, type Network } from './network';
 import { WebError } from './web-error';
+import { downstreamOf, upstreamOf } from './reachability';
 
 /**
  * Balancing an unbalanced web (METHODS.md §7; Allesina & Bondavalli 2003, Ecol. Model. 165:221-229).
@@ -90,8 +91,8 @@ function solveOrRefuse(network: Network, solveSystem: () => number[]): number[] 
  */
 function requireImportToExitPaths(network: Network): void {
   const { n, T, z, e, r, throughflow, outflow, ids } = network;
-  const fed = reachable(n, (i) => z[i] > 0, (i, j) => T[i][j] > 0);
-  const drained = reachable(n, (i) => e[i] + r[i] > 0, (i, j) => T[j][i] > 0);
+  const fed = downstreamOf(T, z.map((zi) => zi > 0));
+  const drained = upstreamOf(T, e.map((ei, i) => ei + r[i] > 0));
   const problems: string[] = [];
   for (let i = 0; i < n; i++) {
     if (throughflow[i] === 0 && outflow[i] === 0) continue;
@@ -102,22 +103,6 @@ function requireImportToExitPaths(network: Network): void {
     else if (!drained[i]) problems.push(`compartment "${id}" has no path to an export or respiration`);
   }
   if (problems.length > 0) throw new WebError('infeasible', problems);
-}
-
-/** Compartments reached from the seeds along `step(i, j)` (i → j). */
-function reachable(n: number, seed: (i: number) => boolean, step: (i: number, j: number) => boolean): boolean[] {
-  const reached = Array.from({ length: n }, (_, i) => seed(i));
-  const stack = reached.flatMap((isSeed, i) => (isSeed ? [i] : []));
-  while (stack.length > 0) {
-    const i = stack.pop()!;
-    for (let j = 0; j < n; j++) {
-      if (!reached[j] && step(i, j)) {
-        reached[j] = true;
-        stack.push(j);
-      }
-    }
-  }
-  return reached;
 }
 
 const METHOD_NAMES = { input: 'input-based method', output: 'output-based method', average: 'average of the two' } as const;

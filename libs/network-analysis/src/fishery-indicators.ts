@@ -2,6 +2,7 @@ import type { Network } from './network';
 import { requireAnalysable } from './balance-check';
 import { identityMinus, solve } from './linear-algebra';
 import { WebError } from './web-error';
+import { upstreamOf } from './reachability';
 
 /**
  * Fishery indicators (METHODS.md §9): catch, tonnes and value per fleet and in total; mean trophic
@@ -82,7 +83,7 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
  */
 export function primaryProductionIntensity(network: Network): (number | null)[] {
   const { n, T, z, e, kinds } = network;
-  const exporting = reachesExport(network);
+  const exporting = upstreamOf(T, e.map((ej) => ej > 0));
   const kept = Array.from({ length: n }, (_, j) => j).filter((j) => exporting[j]);
   const output = kept.map((j) => e[j] + T[j].reduce((sum, t) => sum + t, 0));
   // x_j = ε_j (T_j − r_j) solves x = (I − F'ᵀ)⁻¹ w with F'_ij = T_ij / (T_i − r_i).
@@ -94,22 +95,6 @@ export function primaryProductionIntensity(network: Network): (number | null)[] 
   return epsilon;
 }
 
-/** Compartments from which some export can be reached along positive flows (itself included). */
-function reachesExport(network: Network): boolean[] {
-  const { n, T, e } = network;
-  const reaches = e.map((ej) => ej > 0);
-  const stack = reaches.flatMap((yes, i) => (yes ? [i] : []));
-  while (stack.length > 0) {
-    const j = stack.pop()!;
-    for (let i = 0; i < n; i++) {
-      if (!reaches[i] && T[i][j] > 0) {
-        reaches[i] = true;
-        stack.push(i);
-      }
-    }
-  }
-  return reaches;
-}
 
 /** Price per tonne of each compartment's harvest by one fleet (or by any fleet, for the total value). */
 function prices(network: Network, fleet?: string): { compartment: number; fleet: string; price: number }[] {

@@ -12,6 +12,7 @@ export * from './least-change';
 export * from './mixed-trophic-impact';
 export * from './network';
 export * from './random';
+export * from './reachability';
 export * from './robustness';
 export * from './total-dependency';
 export * from './trophic-ladder';

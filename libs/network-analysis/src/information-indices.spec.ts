@@ -5,6 +5,7 @@ import { createNetwork, networkFromJson } from './network';
 import { extendedMatrix, informationIndices, type InformationIndices } from './information-indices';
 import { balancedWeb } from './testing/arbitraries';
 import { mulberry32 } from './random';
+import { scaledWeb } from './testing/scaled-web';
 
 const sumParts = (i: InformationIndices) =>
   i.overheadParts.imports + i.overheadParts.exports + i.overheadParts.respiration + i.overheadParts.redundancy;
@@ -125,7 +126,7 @@ describe('informationIndices', () => {
     fc.assert(
       fc.property(balancedWeb({ max: 15 }), fc.double({ min: 1e-3, max: 1e3, noNaN: true }), (web, k) => {
         const before = informationIndices(createNetwork(web));
-        const after = informationIndices(createNetwork(scaled(web, k)));
+        const after = informationIndices(createNetwork(scaledWeb(web, k)));
         expect(after.relativeAscendency).toBeCloseTo(before.relativeAscendency, 10);
         expect(after.developmentCapacity / (k * before.developmentCapacity)).toBeCloseTo(1, 10);
         expect(after.ascendency / (k * before.ascendency)).toBeCloseTo(1, 10);
@@ -144,12 +145,3 @@ function shuffle<T>(items: readonly T[], seed: number): T[] {
   return result;
 }
 
-function scaled(web: Web, k: number): Web {
-  return {
-    ...web,
-    flows: web.flows.map((f) => ({ ...f, value: f.value * k })),
-    imports: web.imports.map((f) => ({ ...f, value: f.value * k })),
-    exports: web.exports.map((f) => ({ ...f, value: f.value * k })),
-    respiration: web.respiration.map((f) => ({ ...f, value: f.value * k })),
-  };
-}

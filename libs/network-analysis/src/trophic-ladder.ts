@@ -1,3 +1,4 @@
+import type { LadderLevelRow } from '@seinework/contracts';
 import type { Network } from './network';
 import { internalDiet, trophicLevels } from './trophic-levels';
 
@@ -30,18 +31,8 @@ import { internalDiet, trophicLevels } from './trophic-levels';
 export const MAX_LEVELS = 20;
 export const REMAINING_SHARE = 1e-12;
 
-export interface LadderLevel {
-  level: number;
-  input: number;
-  passedOn: number;
-  returnedToDetritus: number;
-  respired: number;
-  /** Exports other than harvest. */
-  exported: number;
-  harvested: number;
-  /** passedOn / input; null where the level has no input. */
-  efficiency: number | null;
-}
+/** One row of the ladder, as in the analysis document (libs/contracts). */
+export type LadderLevel = LadderLevelRow;
 
 export interface TrophicLadder {
   levels: LadderLevel[];

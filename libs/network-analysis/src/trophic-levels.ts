@@ -2,6 +2,7 @@ import type { Network } from './network';
 import { requireAnalysable } from './balance-check';
 import { identityMinus, solve, zeros } from './linear-algebra';
 import { WebError } from './web-error';
+import { downstreamOf } from './reachability';
 
 /**
  * Effective trophic level (METHODS.md §3): producers and detritus at level 1 (common practice);
@@ -83,23 +84,7 @@ function internalIntake(network: Network, j: number): number {
 function requireGrounded(network: Network, fed: readonly number[]): void {
   const { n, T, ids } = network;
   const isFed = new Set(fed);
-  const reached = new Array<boolean>(n).fill(false);
-  const stack: number[] = [];
-  for (let i = 0; i < n; i++) {
-    if (!isFed.has(i)) {
-      reached[i] = true;
-      stack.push(i);
-    }
-  }
-  while (stack.length > 0) {
-    const i = stack.pop()!;
-    for (let j = 0; j < n; j++) {
-      if (!reached[j] && T[i][j] > 0) {
-        reached[j] = true;
-        stack.push(j);
-      }
-    }
-  }
+  const reached = downstreamOf(T, Array.from({ length: n }, (_, i) => !isFed.has(i)));
   const floating = fed.filter((j) => !reached[j]);
   if (floating.length > 0) {
     throw new WebError('invalid', [
