@@ -1,10 +1,11 @@
 import fc from 'fast-check';
+import { lusolve, multiply, transpose } from 'mathjs';
 import type { Web } from '@seinework/contracts';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import { isBalanced } from './balance-check';
 import { balanceNetwork } from './balancing';
 import { DEFAULT_CV, leastChangeBalance } from './least-change';
-import { createNetwork, networkFromJson, withFluxValues, type Network } from './network';
+import { OUTSIDE, createNetwork, networkFromJson, withFluxValues, type Network } from './network';
 import { mulberry32 } from './random';
 import { generateWeb } from './testing/generated-web';
 import { balancedWeb } from './testing/arbitraries';
@@ -177,6 +178,36 @@ describe('least-change balancing (weighted least squares, Vézina & Platt 1988, 
         }
       }),
     );
+  });
+
+  it('where no flux reaches its zero bound, equals the closed-form weighted least-squares solution computed with mathjs', () => {
+    // x = x0 − V Aᵀ (A V Aᵀ)⁻¹ A x0 with V = diag((cv x0)²): the textbook solution of the equality-
+    // constrained problem (Vézina & Platt 1988), computed independently of the engine's dual iteration.
+    let compared = 0;
+    fc.assert(
+      fc.property(balancedWeb({ max: 12 }), fc.integer({ min: 0, max: 2 ** 31 - 1 }), (web, seed) => {
+        const network = perturbed(createNetwork(web), seed, 0.3);
+        const free = network.fluxes.flatMap((f, k) => (f.value > 0 ? [k] : []));
+        const A = Array.from({ length: network.n }, () => free.map(() => 0));
+        free.forEach((k, m) => {
+          const f = network.fluxes[k];
+          if (f.to !== OUTSIDE) A[f.to][m] += 1;
+          if (f.from !== OUTSIDE) A[f.from][m] -= 1;
+        });
+        const x0 = free.map((k) => network.fluxes[k].value);
+        const V = x0.map((x) => (DEFAULT_CV * x) ** 2);
+        const AV = A.map((row) => row.map((a, m) => a * V[m]));
+        const lambda = lusolve(multiply(AV, transpose(A)), multiply(A, x0)) as unknown as number[][];
+        const correction = multiply(transpose(AV), lambda.map((row) => row[0])) as number[];
+        const expected = x0.map((x, m) => x - correction[m]);
+        if (expected.some((x) => x <= 0)) return; // a bound is active: the closed form does not apply
+        compared++;
+        const balanced = leastChangeBalance(network);
+        free.forEach((k, m) => expect(Math.abs(balanced.fluxes[k].value - expected[m])).toBeLessThanOrEqual(1e-7 * Math.max(1, expected[m])));
+      }),
+      { numRuns: 60 },
+    );
+    expect(compared).toBeGreaterThan(20);
   });
 
   it('balances perturbed 50-compartment webs (speed is measured in npm run bench)', () => {
