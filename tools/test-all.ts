@@ -19,7 +19,7 @@ const reportDir = mkdtempSync(join(tmpdir(), 'seinework-tests-'));
 
 function run(label: string, command: string, args: string[]): { ok: boolean; output: string } {
   console.log(`\n▶ ${label}`);
-  const result = spawnSync(command, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0' } });
+  const result = spawnSync(command, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0', NO_COLOR: '1' } });
   const output = `${result.stdout ?? ''}${result.stderr ?? ''}`;
   process.stdout.write(output);
   return { ok: result.status === 0, output };
@@ -44,10 +44,14 @@ function vitestSuite(label: string, config: string): Tally {
 
 function angularSuite(): Tally {
   const { ok, output } = run('browser app tests (ng test)', bin('ng'), ['test', 'web', '--watch=false']);
-  const line = output.split('\n').find((l) => /^\s*Tests\s/.test(l)) ?? '';
+  // the Angular builder colours its summary whatever the environment says: read it without escapes
+  const plain = output.replace(/\u001b\[[0-9;]*m/g, '');
+  const line = plain.split('\n').find((l) => /^\s*Tests\s/.test(l)) ?? '';
   const passed = Number(/(\d+) passed/.exec(line)?.[1] ?? 0);
   const failed = Number(/(\d+) failed/.exec(line)?.[1] ?? 0);
-  return { passed, failed: failed + (ok || failed > 0 ? 0 : 1) };
+  // a run that failed without a failed test, or whose tally cannot be read, counts as one failure
+  const unexplained = (!ok && failed === 0) || passed + failed === 0;
+  return { passed, failed: failed + (unexplained ? 1 : 0) };
 }
 
 const tallies: Tally[] = [
