@@ -32,7 +32,9 @@ export async function runCommand(name: string, body: () => unknown | Promise<unk
     process.stdout.write(`${JSON.stringify(result)}\n`);
   } catch (error) {
     if (error instanceof InputError || error instanceof WebError) {
-      process.stderr.write(`${name}: ${oneLine(error.message)}\n`);
+      // METHODS.md §0: an unbalanced web comes with the offer to balance it (§7)
+      const offer = error instanceof WebError && error.kind === 'unbalanced' ? ' — balance it with: npm run --silent balance -- WEB.json [least-change|input|output|average]' : '';
+      process.stderr.write(`${name}: ${oneLine(error.message)}${offer}\n`);
       process.exitCode = 2;
     } else {
       process.stderr.write(`${name}: internal error: ${oneLine(error instanceof Error ? error.message : String(error))}\n`);

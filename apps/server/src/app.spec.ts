@@ -71,6 +71,20 @@ describe('server', () => {
     expect((await json(unbalanced)).problems.join(' ')).toMatch(/"plants" is unbalanced/);
   });
 
+  it('balances a posted web by the method asked for, which then analyses', async () => {
+    const unbalanced = { ...cone, imports: cone.imports.map((i) => (i.to === 'plants' ? { ...i, value: i.value + 50 } : i)) };
+    for (const method of ['input', 'output', 'average', 'least-change']) {
+      const response = await post('/api/balancing', JSON.stringify({ web: unbalanced, method }));
+      expect(response.status).toBe(200);
+      const body = await json(response);
+      expect(body).toMatchObject({ method, wasBalanced: false });
+      expect((await post('/api/analyses', JSON.stringify(body.web))).status).toBe(200);
+    }
+    const unknown = await post('/api/balancing', JSON.stringify({ web: unbalanced, method: 'guess' }));
+    expect(unknown.status).toBe(400);
+    expect((await json(unknown)).problems).toEqual(['method: method must be one of input, output, average, least-change']);
+  });
+
   it('refuses state-changing requests from another site', async () => {
     const response = await post('/api/analyses', JSON.stringify(cone), { origin: 'https://elsewhere.example' });
     expect(response.status).toBe(403);

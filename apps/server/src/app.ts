@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { demoRoutes } from './demo/demo-routes';
 import { analysisRoutes } from './http/analysis-routes';
+import { balancingRoutes } from './http/balancing-routes';
 import { errorHandler, RequestError } from './http/errors';
 import { optionRoutes } from './http/option-routes';
 import { originCheck } from './http/origin-check';
@@ -27,6 +28,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   });
   app.use('/api/demo', await demoRoutes(settings.demoWebPath));
   app.use('/api/analyses', analysisRoutes());
+  app.use('/api/balancing', balancingRoutes());
   app.use('/api/options', optionRoutes({ drawPool: settings.drawPool }));
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.path}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {

@@ -45,7 +45,7 @@ export function requireAnalysable(network: Network): void {
       'unbalanced',
       unbalanced.map(
         (u) =>
-          `compartment "${u.id}" is unbalanced: inputs ${u.inputs} and outputs ${u.outputs} differ by ${u.imbalance} (balance the web first)`,
+          `compartment "${u.id}" is unbalanced: inputs ${u.inputs} and outputs ${u.outputs} differ by ${u.imbalance}`,
       ),
     );
   }

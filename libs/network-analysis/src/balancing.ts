@@ -23,9 +23,9 @@ import { downstreamOf, upstreamOf } from './reachability';
  * is singular (material trapped in a closed set) or the compartment would be emptied.
  */
 
-export type BalancingMethod = 'input' | 'output' | 'average' | 'least-change';
+export const BALANCING_METHODS = ['input', 'output', 'average', 'least-change'] as const;
 
-export const BALANCING_METHODS: readonly BalancingMethod[] = ['input', 'output', 'average', 'least-change'];
+export type BalancingMethod = (typeof BALANCING_METHODS)[number];
 
 export interface BalanceOptions {
   readonly method: BalancingMethod;

@@ -22,7 +22,7 @@ export const errorHandler: ErrorRequestHandler = (error, _request, response, _ne
     return;
   }
   if (error instanceof WebError) {
-    const message = error.kind === 'invalid' ? 'The web is not valid' : error.kind === 'unbalanced' ? 'The web is not balanced' : 'The web cannot be analysed';
+    const message = error.kind === 'invalid' ? 'The web is not valid' : error.kind === 'unbalanced' ? 'The web is not balanced: balance it (input, output, average or least change) before analysing' : 'The web cannot be analysed';
     response.status(422).json({ error: message, problems: error.problems });
     return;
   }
