@@ -53,6 +53,8 @@ describe('npm run analyze', () => {
     ['a non-numeric value', { ...cone, imports: [{ to: 'plants', value: 'lots' }] }, /imports\[0\]\.value/],
     ['an unknown kind', { ...cone, compartments: [{ id: 'plants', name: 'P', kind: 'fungus' }] }, /kind must be one of/],
     ['an unknown key', { ...cone, colour: 'teal' }, /colour/],
+    ['a web that carries no flow', { ...cone, flows: [], imports: [], exports: [], respiration: [] }, /carries no flow/],
+    ['a non-finite value', '{"name":"x","unit":"u","compartments":[{"id":"a","name":"A","kind":"producer"}],"flows":[],"imports":[{"to":"a","value":1e999}],"exports":[],"respiration":[]}', /imports\[0\]\.value/],
     ['an unbalanced web', { ...cone, imports: [{ to: 'plants', value: 11000 }, cone.imports[1]] }, /"plants" is unbalanced.* — balance it with: npm run --silent balance -- WEB.json/],
   ];
   it.each(badInputs)('exits 2 with one line on stderr and nothing on stdout for %s', (_, content, message) => {

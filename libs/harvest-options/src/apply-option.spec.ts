@@ -1,6 +1,8 @@
 import fc from 'fast-check';
 import { createNetwork, isBalanced, requireAnalysable, WebError, type Network } from '@seinework/network-analysis';
 import { anyStructureWeb } from '../../network-analysis/src/testing/arbitraries';
+import { nonFinite } from '../../network-analysis/src/testing/non-finite';
+import { runOption } from './run-option';
 import type { Adjustment, ResponseRule } from '@seinework/contracts';
 import { applyOption } from './apply-option';
 import { planOption } from './option-web';
@@ -92,6 +94,8 @@ describe('applyOption on webs of any structure and any adjustments', () => {
         }
         try {
           checkOption(baseline, adjustments, response);
+          // and the whole run document (baseline, option, difference, web) holds no NaN or infinity
+          expect(nonFinite(runOption(web, { name: 'fuzz', response, adjustments }, { cycles: { maxCycles: 2_000 } }))).toEqual([]);
         } catch (error) {
           expect(error, String(error)).toBeInstanceOf(WebError);
           expect((error as WebError).problems.length).toBeGreaterThan(0);

@@ -39,6 +39,9 @@ export function isBalanced(network: Network, tolerance = BALANCE_TOLERANCE): boo
  * exit (export or respiration); otherwise I − G is singular. Throws WebError naming each one.
  */
 export function requireAnalysable(network: Network): void {
+  if (network.throughflow.every((t) => t === 0)) {
+    throw new WebError('invalid', [`"${network.name}" carries no flow: give it imports (primary production) and flows`]);
+  }
   const unbalanced = imbalances(network);
   if (unbalanced.length > 0) {
     throw new WebError(

@@ -34,7 +34,7 @@ export function finnCycling(network: Network, passesThrough: readonly number[] =
     finnCyclingIndex: tst > 0 ? totalCycledThroughflow / tst : 0,
     cycledThroughflow,
     totalCycledThroughflow,
-    cycledToStraightRatio: totalCycledThroughflow / (tst - totalCycledThroughflow),
+    cycledToStraightRatio: tst > totalCycledThroughflow ? totalCycledThroughflow / (tst - totalCycledThroughflow) : 0,
   };
 }
 
