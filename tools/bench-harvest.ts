@@ -13,7 +13,8 @@ import { generateWeb } from '../libs/network-analysis/src/testing/generated-web'
 export interface HarvestBenchmark {
   readonly name: string;
   readonly medianMs: number;
-  readonly target: string;
+  /** The issue's target, where there is one. */
+  readonly limitMs?: number;
 }
 
 async function medianMs(run: () => unknown, repeats: number): Promise<number> {
@@ -67,13 +68,13 @@ export async function harvestBenchmarks(): Promise<HarvestBenchmark[]> {
   }, 1);
 
   return [
-    { name: 'harvest option (bottom-up), 50 compartments', medianMs: await medianMs(() => applyOption(network, option), 21), target: '< 10 ms' },
-    { name: `1,000 uncertainty draws, ${pool.workers} workers (warm pool), 50 compartments`, medianMs: warm, target: '< 5000 ms' },
-    { name: '1,000 uncertainty draws, pool started and stopped per run', medianMs: cold, target: '' },
+    { name: 'harvest option (bottom-up), 50 compartments', medianMs: await medianMs(() => applyOption(network, option), 21), limitMs: 10 },
+    { name: `1,000 uncertainty draws, ${pool.workers} workers (warm pool), 50 compartments`, medianMs: warm, limitMs: 5000 },
+    { name: '1,000 uncertainty draws, pool started and stopped per run', medianMs: cold },
     {
       name: `harvest sensitivity, ${catchCount} catches, 50 compartments`,
       medianMs: await medianMs(() => harvestSensitivity(fishedNetwork), 3),
-      target: '< 2000 ms',
+      limitMs: 2000,
     },
   ];
 }
