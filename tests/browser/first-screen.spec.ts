@@ -60,6 +60,16 @@ describe('first screen in Chromium', () => {
     // one row per compartment in the trophic-position table, plus the header row
     await expect(page.locator('table.positions tr').count()).resolves.toBe(demo.compartments.length + 1);
     await expect(page.locator('body').textContent()).resolves.toMatch(/steady state and are indicative only/);
+    // the fitness curve is drawn: its canvas has painted pixels and names the baseline's place on it
+    const curve = page.locator('sw-fitness-curve canvas');
+    await expect(curve.getAttribute('aria-label')).resolves.toContain(`relative ascendency ${expected.relativeAscendency.toFixed(3)}`);
+    const painted = await curve.evaluate((canvas: HTMLCanvasElement) => {
+      const { data } = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height);
+      let count = 0;
+      for (let i = 3; i < data.length; i += 4) if (data[i] > 0) count++;
+      return count;
+    });
+    expect(painted).toBeGreaterThan(1000);
     const screenshot = join(tmpdir(), 'seinework-first-screen.png');
     await page.screenshot({ path: screenshot, fullPage: true });
     console.log(`screenshot: ${screenshot}`);

@@ -1,13 +1,14 @@
 import { TestBed } from '@angular/core/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import { BaselineOverview } from './baseline-overview';
 
 describe('BaselineOverview', () => {
   beforeEach(() => {
     TestBed.configureTestingModule({
       imports: [BaselineOverview],
-      providers: [provideHttpClient(), provideHttpClientTesting()],
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideCharts(withDefaultRegisterables())],
     });
   });
 
@@ -24,6 +25,7 @@ describe('BaselineOverview', () => {
       ],
       analysis: {
         relativeAscendency: 0.4123,
+        robustness: 0.3654,
         fitness: { shareOfPeak: 0.99, side: 'constraint' },
         finnCyclingIndex: 0.12,
         totalCatchTonnes: 1234,
@@ -41,6 +43,8 @@ describe('BaselineOverview', () => {
     expect(text).toContain('0.412');
     expect(text).toContain('more constraint than flexibility');
     expect(text).toContain('1,234 t/y');
+    const curve = fixture.nativeElement.querySelector('sw-fitness-curve canvas') as HTMLCanvasElement;
+    expect(curve.getAttribute('aria-label')).toBe('Fitness curve: Baseline at relative ascendency 0.412, fitness 0.365');
     const rows = Array.from(fixture.nativeElement.querySelectorAll('tr.mat-mdc-row')) as HTMLElement[];
     expect(rows.map((r) => r.textContent)).toEqual([expect.stringContaining('Fish'), expect.stringContaining('Plankton')]);
   });

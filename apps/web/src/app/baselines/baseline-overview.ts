@@ -3,12 +3,13 @@ import { DecimalPipe, PercentPipe } from '@angular/common';
 import { MatCardModule } from '@angular/material/card';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
+import { FitnessCurve } from '../shared/fitness-curve';
 import { BaselineStore } from './baseline-store';
 
 /** First screen: the demo baseline's headline indicators and the trophic position of each compartment. */
 @Component({
   selector: 'sw-baseline-overview',
-  imports: [MatCardModule, MatProgressBarModule, MatTableModule, DecimalPipe, PercentPipe],
+  imports: [MatCardModule, MatProgressBarModule, MatTableModule, DecimalPipe, PercentPipe, FitnessCurve],
   providers: [BaselineStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './baseline-overview.html',
@@ -25,6 +26,11 @@ export class BaselineOverview implements OnInit {
     return baseline.compartments
       .map((c) => ({ ...c, trophicLevel: analysis.trophicLevels[c.id], cycled: analysis.cycledThroughflow[c.id] }))
       .sort((a, b) => b.trophicLevel - a.trophicLevel);
+  });
+
+  protected readonly placedOnCurve = computed(() => {
+    const analysis = this.store.baseline()?.analysis;
+    return analysis ? [{ label: 'Baseline', relativeAscendency: analysis.relativeAscendency, robustness: analysis.robustness }] : [];
   });
 
   protected readonly fitnessSide = computed(() => {
