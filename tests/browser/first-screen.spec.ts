@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 import { existsSync } from 'node:fs';
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
