@@ -247,3 +247,24 @@ describe('ruleOfThumbPrimaryProductionRequired (Pauly & Christensen 1995, Nature
     expect(ruleOfThumbPrimaryProductionRequired([])).toBe(0);
   });
 });
+
+describe('primary production required at the edge of double precision', () => {
+  it('a catch that is the whole, vanishing output of a producer requires all of its production, finitely', () => {
+    // found by fuzzing: 0.001 of production, all but 5e-324 of it respired; the intensity
+    // 0.001 / 5e-324 overflows, but the requirement of the catch is the whole 0.001
+    const network = createNetwork({
+      name: 'edge',
+      unit: 'u',
+      compartments: [{ id: 'p', name: 'P', kind: 'producer' }],
+      flows: [],
+      imports: [{ to: 'p', value: 0.001 }],
+      exports: [{ from: 'p', value: 5e-324, fleet: 'A' }],
+      respiration: [{ from: 'p', value: 0.001 }],
+    });
+    const result = indicatorsOf(network);
+    expect(result.primaryProductionIntensity).toEqual([null]);
+    expect(result.primaryProductionRequired).toBe(0.001);
+    expect(result.primaryProductionRequiredShare).toBe(1);
+    expect(result.fleets['A'].primaryProductionRequired).toBe(0.001);
+  });
+});

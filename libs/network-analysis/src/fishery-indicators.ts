@@ -45,10 +45,10 @@ export interface FisheryIndicators {
 export function fisheryIndicators(network: Network, trophicLevels: readonly number[]): FisheryIndicators {
   requireAnalysable(network);
   const { n, z, kinds, catches, fleets } = network;
-  const epsilon = primaryProductionIntensity(network);
+  const production = embodiedProduction(network);
   const Y = new Array<number>(n).fill(0);
   for (const row of catches) row.forEach((y, i) => (Y[i] += y));
-  const total = catchIndicators(network, Y, epsilon, trophicLevels, prices(network));
+  const total = catchIndicators(network, Y, production, trophicLevels, prices(network));
   const primaryProduction = z.reduce((sum, w, j) => sum + (kinds[j] === 'producer' ? w : 0), 0);
   const tonnesPerUnit = tonnesPerFlowUnit(network);
   return {
@@ -56,7 +56,7 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
     totalTonnes: total.tonnes,
     totalValue: total.value,
     meanTrophicLevelOfCatch: total.meanTrophicLevelOfCatch,
-    primaryProductionIntensity: epsilon,
+    primaryProductionIntensity: intensities(production),
     primaryProductionRequired: total.primaryProductionRequired,
     primaryProductionRequiredShare: primaryProduction > 0 ? total.primaryProductionRequired / primaryProduction : null,
     ruleOfThumbPrimaryProductionRequired:
@@ -66,7 +66,7 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
             Y.flatMap((y, i) => (y > 0 ? [{ tonnesWet: y * tonnesPerUnit, trophicLevel: trophicLevels[i] }] : [])),
           ),
     fleets: Object.fromEntries(
-      fleets.map((fleet, f) => [fleet, catchIndicators(network, catches[f], epsilon, trophicLevels, prices(network, fleet))]),
+      fleets.map((fleet, f) => [fleet, catchIndicators(network, catches[f], production, trophicLevels, prices(network, fleet))]),
     ),
   };
 }
@@ -82,6 +82,21 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
  * Σ ε_j e_j + (primary production flowing into those compartments) = Σ w.
  */
 export function primaryProductionIntensity(network: Network): (number | null)[] {
+  return intensities(embodiedProduction(network));
+}
+
+function intensities({ embodied, output }: ReturnType<typeof embodiedProduction>): (number | null)[] {
+  // a finite intensity can still overflow when a compartment's output is a vanishing fraction of
+  // what reaches it; JSON has no infinity, so it is reported as missing
+  return embodied.map((x, j) => (x === null || !Number.isFinite(x / output[j]) ? null : x / output[j]));
+}
+
+/**
+ * x_j = ε_j (T_j − r_j), the primary production embodied in j's non-respired output, and that
+ * output. The catch's requirement ε_j Y_j is taken as x_j (Y_j / output_j): a share of a finite
+ * quantity, finite however small the output.
+ */
+function embodiedProduction(network: Network): { embodied: (number | null)[]; output: number[] } {
   const { n, T, z, e, kinds } = network;
   const exporting = upstreamOf(T, e.map((ej) => ej > 0));
   const kept = Array.from({ length: n }, (_, j) => j).filter((j) => exporting[j]);
@@ -90,11 +105,14 @@ export function primaryProductionIntensity(network: Network): (number | null)[] 
   const FT = kept.map((j) => kept.map((i, a) => T[i][j] / output[a]));
   const w = kept.map((j) => (kinds[j] === 'producer' ? z[j] : 0));
   const x = kept.length > 0 ? solve(identityMinus(FT), w, 'primary production intensities') : [];
-  const epsilon = new Array<number | null>(n).fill(null);
-  kept.forEach((j, a) => (epsilon[j] = x[a] / output[a]));
-  return epsilon;
+  const embodied = new Array<number | null>(n).fill(null);
+  const outputs = new Array<number>(n).fill(0);
+  kept.forEach((j, a) => {
+    embodied[j] = x[a];
+    outputs[j] = output[a];
+  });
+  return { embodied, output: outputs };
 }
-
 
 /** Price per tonne of each compartment's harvest by one fleet (or by any fleet, for the total value). */
 function prices(network: Network, fleet?: string): { compartment: number; fleet: string; price: number }[] {
@@ -108,7 +126,7 @@ function prices(network: Network, fleet?: string): { compartment: number; fleet:
 function catchIndicators(
   network: Network,
   Y: readonly number[],
-  epsilon: readonly (number | null)[],
+  production: ReturnType<typeof embodiedProduction>,
   TL: readonly number[],
   priced: ReturnType<typeof prices>,
 ): FleetIndicators {
@@ -120,8 +138,8 @@ function catchIndicators(
     if (y === 0) return;
     total += y;
     weightedLevel += y * TL[i];
-    // a compartment with a catch has an export, so its intensity is never null
-    required += y * epsilon[i]!;
+    // a compartment with a catch has an export, so it is never left out of the system
+    required += production.embodied[i]! * (y / production.output[i]);
   });
   const catchOf = (p: (typeof priced)[number]) => network.catches[network.fleets.indexOf(p.fleet)][p.compartment];
   return {
