@@ -5,7 +5,7 @@ import { createNetwork } from '@seinework/network-analysis';
 import { generateWeb } from '../libs/network-analysis/src/testing/generated-web';
 
 /**
- * Harvest-option timings for `npm run bench` (issue 3, item 7): medians of repeated in-process runs
+ * Harvest-option timings for `npm run bench`, against the targets the product set: medians of repeated in-process runs
  * after a warm-up, on generated 50-compartment webs. Draws run on a warm worker pool, as on the
  * server, which keeps one; a second row shows a one-off run that starts and stops its own pool (the CLI).
  */

@@ -11,7 +11,7 @@ import { applyOption } from './apply-option';
 import type { ScalarKey } from './uncertainty';
 
 /**
- * Harvest sensitivity (issue 3, on METHODS.md §8 and §1): for every existing fleet × compartment
+ * Harvest sensitivity (built on METHODS.md §8 and §1): for every existing fleet × compartment
  * catch, the change of each scalar indicator per +1 % of that catch — a balanced finite difference
  * (the option web of a 1 % increase under the chosen response rule against the baseline), not the
  * local gradient ∂F/∂X of §1, which leaves the web unbalanced. Sorted views show which catches move
