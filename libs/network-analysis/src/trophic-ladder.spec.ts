@@ -5,6 +5,7 @@ import { createNetwork, networkFromJson, type Network } from './network';
 import { MAX_LEVELS, trophicLadder, type LadderLevel } from './trophic-ladder';
 import { trophicLevels } from './trophic-levels';
 import { balancedWeb } from './testing/arbitraries';
+import { balancedByRespiration } from './testing/balanced-by-respiration';
 
 const TOLERANCE = 1e-9;
 
@@ -103,26 +104,7 @@ describe('trophicLadder', () => {
 
   it('a strong consumer cycle is cut at 20 levels, the top holding every level above', () => {
     // a takes 100 from p and 900 from b; b eats only a: TL_a = 20, TL_b = 21
-    const web: Web = {
-      name: 'loop',
-      unit: 'u',
-      compartments: [
-        { id: 'p', name: 'P', kind: 'producer' },
-        { id: 'a', name: 'A', kind: 'consumer' },
-        { id: 'b', name: 'B', kind: 'consumer' },
-      ],
-      flows: [
-        { from: 'p', to: 'a', value: 100 },
-        { from: 'a', to: 'b', value: 900 },
-        { from: 'b', to: 'a', value: 900 },
-      ],
-      imports: [{ to: 'p', value: 200 }],
-      exports: [],
-      respiration: [
-        { from: 'p', value: 100 },
-        { from: 'a', value: 100 },
-      ],
-    };
+    const web = balancedByRespiration('loop', { p: 'producer', a: 'consumer', b: 'consumer' }, [['p', 'a', 100], ['a', 'b', 900], ['b', 'a', 900]], { p: 200 });
     const network = createNetwork(web);
     const ladder = trophicLadder(network);
     const TL = trophicLevels(network).levels;

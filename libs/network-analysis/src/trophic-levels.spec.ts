@@ -4,35 +4,14 @@ import cone from '../../../tests/fixtures/cone-spring.json';
 import { createNetwork, networkFromJson } from './network';
 import { internalDiet, trophicLevels } from './trophic-levels';
 import { balancedWeb } from './testing/arbitraries';
+import { balancedByRespiration } from './testing/balanced-by-respiration';
 import { catchWebError } from './testing/catch-web-error';
 
 const TOLERANCE = 1e-9;
 
-/** Producer p (import 100) feeding consumer a; consumer b eats a and also takes an import. */
+/** Producer p (import 100) feeding consumer a; consumer b eats a and also takes an import of 30. */
 function withConsumerImport(): Web {
-  return {
-    name: 'consumer import',
-    unit: 'u',
-    compartments: [
-      { id: 'p', name: 'P', kind: 'producer' },
-      { id: 'a', name: 'A', kind: 'consumer' },
-      { id: 'b', name: 'B', kind: 'consumer' },
-    ],
-    flows: [
-      { from: 'p', to: 'a', value: 40 },
-      { from: 'a', to: 'b', value: 10 },
-    ],
-    imports: [
-      { to: 'p', value: 100 },
-      { to: 'b', value: 30 },
-    ],
-    exports: [],
-    respiration: [
-      { from: 'p', value: 60 },
-      { from: 'a', value: 30 },
-      { from: 'b', value: 40 },
-    ],
-  };
+  return balancedByRespiration('consumer import', { p: 'producer', a: 'consumer', b: 'consumer' }, [['p', 'a', 40], ['a', 'b', 10]], { p: 100, b: 30 });
 }
 
 describe('internalDiet', () => {
@@ -86,27 +65,7 @@ describe('trophicLevels', () => {
 
   it('solves consumer cycles exactly: a eats p and b, b eats a', () => {
     // a: 50 from p, 50 from b → TL_a = 1 + (1 + TL_b)/2, TL_b = 1 + TL_a → TL_a = 4, TL_b = 5
-    const web: Web = {
-      name: 'cycle',
-      unit: 'u',
-      compartments: [
-        { id: 'p', name: 'P', kind: 'producer' },
-        { id: 'a', name: 'A', kind: 'consumer' },
-        { id: 'b', name: 'B', kind: 'consumer' },
-      ],
-      flows: [
-        { from: 'p', to: 'a', value: 50 },
-        { from: 'a', to: 'b', value: 60 },
-        { from: 'b', to: 'a', value: 50 },
-      ],
-      imports: [{ to: 'p', value: 100 }],
-      exports: [],
-      respiration: [
-        { from: 'p', value: 50 },
-        { from: 'a', value: 40 },
-        { from: 'b', value: 10 },
-      ],
-    };
+    const web = balancedByRespiration('cycle', { p: 'producer', a: 'consumer', b: 'consumer' }, [['p', 'a', 50], ['a', 'b', 60], ['b', 'a', 50]], { p: 100 });
     const { levels } = trophicLevels(createNetwork(web));
     expect(levels[1]).toBeCloseTo(4, 12);
     expect(levels[2]).toBeCloseTo(5, 12);
