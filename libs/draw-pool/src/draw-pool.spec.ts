@@ -1,13 +1,10 @@
 import type { HarvestOption, Web } from '@seinework/contracts';
 import { optionUncertainty } from '@seinework/harvest-options';
 import cone from '../../../tests/fixtures/cone-spring.json';
+import detritivoreFishery from '../../../tests/fixtures/cone-spring-detritivore-fishery.json';
 import { createDrawPool } from './draw-pool';
 
-const newFishery: HarvestOption = {
-  name: 'detritivore fishery',
-  response: 'bottom-up',
-  adjustments: [{ type: 'open-fishery', fleet: 'net', compartment: 'detritivores', amount: 100 }],
-};
+const newFishery = detritivoreFishery as HarvestOption;
 
 describe('createDrawPool (worker threads for uncertainty draws)', () => {
   it('gives the same summary bit for bit as drawing in process, whatever the chunking, and reports progress', async () => {

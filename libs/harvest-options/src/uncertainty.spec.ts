@@ -2,17 +2,14 @@ import fc from 'fast-check';
 import type { HarvestOption, Web } from '@seinework/contracts';
 import { createNetwork, scalarIndicators, SCALAR_INDICATORS } from '@seinework/network-analysis';
 import cone from '../../../tests/fixtures/cone-spring.json';
+import detritivoreFishery from '../../../tests/fixtures/cone-spring-detritivore-fishery.json';
 import { applyOption } from './apply-option';
 import { drawSeed, lognormalDraw } from './uncertainty-draw';
 import { optionUncertainty, quantile } from './uncertainty';
 import { webWithAdjustments } from './testing/option-arbitraries';
 
 const coneWeb = cone as Web;
-const newFishery: HarvestOption = {
-  name: 'detritivore fishery',
-  response: 'bottom-up',
-  adjustments: [{ type: 'open-fishery', fleet: 'net', compartment: 'detritivores', amount: 100 }],
-};
+const newFishery = detritivoreFishery as HarvestOption;
 
 describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
   it('with cv = 0 every band collapses to the deterministic value', async () => {
