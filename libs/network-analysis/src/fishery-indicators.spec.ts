@@ -11,6 +11,8 @@ import {
 import { trophicLevels } from './trophic-levels';
 import { balancedWeb } from './testing/arbitraries';
 import { WebError } from './web-error';
+import { balancedByRespiration } from './testing/balanced-by-respiration';
+import { catchWebError } from './testing/catch-web-error';
 
 const TOLERANCE = 1e-9;
 const sum = (values: readonly number[]) => values.reduce((s, v) => s + v, 0);
@@ -266,5 +268,28 @@ describe('primary production required at the edge of double precision', () => {
     expect(result.primaryProductionRequired).toBe(0.001);
     expect(result.primaryProductionRequiredShare).toBe(1);
     expect(result.fleets['A'].primaryProductionRequired).toBe(0.001);
+  });
+});
+
+describe('primary production required of a near-closed web', () => {
+  // p feeds a; a and detritus d pass material back and forth; a's catch is the web's only export
+  function nearClosed(catchAmount: number): Network {
+    const web = balancedByRespiration('near-closed', { p: 'producer', a: 'consumer', d: 'detritus' }, [['p', 'a', 50], ['a', 'd', 40], ['d', 'a', 30]], { p: 100 });
+    web.exports.push({ from: 'a', value: catchAmount, fleet: 'net' });
+    web.respiration.find((r) => r.from === 'a')!.value -= catchAmount;
+    return createNetwork(web);
+  }
+
+  it('attributes all primary production to the only export, however small (conservation, Σ ε e = Σ w)', () => {
+    expect(indicatorsOf(nearClosed(1e-3)).primaryProductionRequired).toBeCloseTo(100, 7);
+    expect(indicatorsOf(nearClosed(1)).primaryProductionRequired).toBeCloseTo(100, 9);
+  });
+
+  it('refuses, naming the export, when the export is too small for double precision to apportion (found by fuzzing)', () => {
+    for (const tiny of [1e-15, 1e-12]) {
+      const error = catchWebError(() => indicatorsOf(nearClosed(tiny)));
+      expect(error.kind).toBe('infeasible');
+      expect(error.problems).toEqual([expect.stringMatching(/^primary production required cannot be apportioned: .*"a" \(exports 1e-1\d of a throughflow of 80\)/)]);
+    }
   });
 });

@@ -104,7 +104,7 @@ function embodiedProduction(network: Network): { embodied: (number | null)[]; ou
   // x_j = ε_j (T_j − r_j) solves x = (I − F'ᵀ)⁻¹ w with F'_ij = T_ij / (T_i − r_i).
   const FT = kept.map((j) => kept.map((i, a) => T[i][j] / output[a]));
   const w = kept.map((j) => (kinds[j] === 'producer' ? z[j] : 0));
-  const x = kept.length > 0 ? solve(identityMinus(FT), w, 'primary production intensities') : [];
+  const x = kept.length > 0 ? solveOrExplain(network, FT, w) : [];
   const embodied = new Array<number | null>(n).fill(null);
   const outputs = new Array<number>(n).fill(0);
   kept.forEach((j, a) => {
@@ -113,6 +113,43 @@ function embodiedProduction(network: Network): { embodied: (number | null)[]; ou
   });
   return { embodied, output: outputs };
 }
+
+/**
+ * Near-closed webs: when the only exports reached from a loop are a vanishing fraction of what it
+ * carries (a catch cut to almost nothing, say), all the loop's production is attributed to them,
+ * passing round the loop countless times. I − F'ᵀ is then singular, or so ill-conditioned that the
+ * embodied flows (which count every pass) exceed the production by orders of magnitude and their
+ * digits are lost. Refused, naming the exports responsible.
+ */
+function solveOrExplain(network: Network, FT: number[][], w: number[]): number[] {
+  const production = w.reduce((sum, v) => sum + v, 0);
+  let x: number[] | null;
+  try {
+    x = solve(identityMinus(FT), w, 'primary production intensities');
+  } catch (error) {
+    if (!(error instanceof WebError)) throw error;
+    x = null;
+  }
+  if (x !== null && x.every((v) => v <= MAX_PASSES * production)) return x;
+  const { e, ids, throughflow } = network;
+  const vanishing = ids.flatMap((id, j) =>
+    e[j] > 0 && e[j] < VANISHING_EXPORT * throughflow[j] ? [`"${id}" (exports ${e[j]} of a throughflow of ${throughflow[j]})`] : [],
+  );
+  const why =
+    vanishing.length > 0
+      ? `the exports of ${vanishing.join(', ')} are too small to resolve in double precision (close such a catch rather than cut it to almost nothing)`
+      : `material passes round its loops more than ${MAX_PASSES.toExponential(0)} times before it is exported`;
+  throw new WebError('infeasible', [`primary production required cannot be apportioned: almost nothing but respiration leaves the web; ${why}`]);
+}
+
+/**
+ * Embodied flow above this multiple of the primary production means loops passed this many times
+ * on average; the relative error grows about as passes × 1e-16, so beyond it fewer than seven
+ * significant digits of the answer survive.
+ */
+const MAX_PASSES = 1e9;
+/** An export below this share of its compartment's throughflow is vanishing for the message above. */
+const VANISHING_EXPORT = 1e-9;
 
 /** Price per tonne of each compartment's harvest by one fleet (or by any fleet, for the total value). */
 function prices(network: Network, fleet?: string): { compartment: number; fleet: string; price: number }[] {
