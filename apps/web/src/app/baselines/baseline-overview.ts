@@ -19,20 +19,6 @@ export class BaselineOverview implements OnInit {
   protected readonly store = inject(BaselineStore);
   protected readonly columns = ['name', 'kind', 'trophicLevel', 'cycled'];
 
-  protected readonly rows = computed(() => {
-    const baseline = this.store.baseline();
-    if (!baseline) return [];
-    const { analysis } = baseline;
-    return baseline.compartments
-      .map((c) => ({ ...c, trophicLevel: analysis.trophicLevels[c.id], cycled: analysis.cycledThroughflow[c.id] }))
-      .sort((a, b) => b.trophicLevel - a.trophicLevel);
-  });
-
-  protected readonly placedOnCurve = computed(() => {
-    const analysis = this.store.baseline()?.analysis;
-    return analysis ? [{ label: 'Baseline', relativeAscendency: analysis.relativeAscendency, robustness: analysis.robustness }] : [];
-  });
-
   protected readonly fitnessSide = computed(() => {
     const side = this.store.baseline()?.analysis.fitness.side;
     if (side === 'constraint') return 'more constraint than flexibility';

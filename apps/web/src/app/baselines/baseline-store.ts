@@ -1,6 +1,6 @@
-import { inject } from '@angular/core';
+import { computed, inject } from '@angular/core';
 import { HttpErrorResponse } from '@angular/common/http';
-import { patchState, signalStore, withMethods, withState } from '@ngrx/signals';
+import { patchState, signalStore, withComputed, withMethods, withState } from '@ngrx/signals';
 import { firstValueFrom } from 'rxjs';
 import { BaselineData, type BaselineSummary } from './baseline-data';
 
@@ -12,6 +12,22 @@ interface BaselineState {
 
 export const BaselineStore = signalStore(
   withState<BaselineState>({ baseline: null, loading: false, error: null }),
+  withComputed(({ baseline }) => ({
+    /** Each compartment with its trophic level and cycled throughflow, highest level first. */
+    positions: computed(() => {
+      const current = baseline();
+      if (!current) return [];
+      const { analysis } = current;
+      return current.compartments
+        .map((c) => ({ ...c, trophicLevel: analysis.trophicLevels[c.id], cycled: analysis.cycledThroughflow[c.id] }))
+        .sort((a, b) => b.trophicLevel - a.trophicLevel);
+    }),
+    /** The baseline's place on the fitness curve. */
+    placedOnCurve: computed(() => {
+      const analysis = baseline()?.analysis;
+      return analysis ? [{ label: 'Baseline', relativeAscendency: analysis.relativeAscendency, robustness: analysis.robustness }] : [];
+    }),
+  })),
   withMethods((store, data = inject(BaselineData)) => ({
     async loadDemo(): Promise<void> {
       patchState(store, { loading: true, error: null });
