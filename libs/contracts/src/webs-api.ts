@@ -72,20 +72,34 @@ export const webDetailsSchema = z.strictObject({
 });
 export type WebDetails = z.infer<typeof webDetailsSchema>;
 
-/** `PUT /api/webs/:id/versions/:versionId` (a draft only): replace the draft's web. */
-export const saveDraftBodySchema = z.strictObject({ web: z.unknown(), note: text('note', 2000).optional() });
-
-/** `POST /api/webs/:id/versions/:versionId/drafts`: a new draft from any version (edit a published one). */
-export const newDraftBodySchema = z.strictObject({ note: text('note', 2000).optional() });
+/**
+ * `POST /api/webs/:id/versions`: save an edited web as a new draft version. Every save is a new
+ * version (traceable history); `basedOn` names the version the edit started from.
+ */
+export const newVersionBodySchema = z.strictObject({
+  web: z.unknown(),
+  note: text('note', 2000).optional(),
+  basedOn: z.string({ error: 'basedOn must be a version id' }).max(64).optional(),
+});
 
 /** `POST /api/webs/:id/versions/:versionId/clone`: a new web whose first draft copies this version. */
 export const cloneBodySchema = z.strictObject({ name: text('name', 200).min(1, 'name must not be empty'), place: text('place', 200).optional(), period: text('period', 100).optional() });
 
-/** `POST /api/webs/:id/versions/:versionId/balance`: balance a draft and show what changed; `save` stores it as the draft. */
-export const balanceDraftBodySchema = z.strictObject({
+/**
+ * `POST /api/webs/balance` (webs.edit): balance the web being edited and show what changed; nothing
+ * is stored (the editor saves the result as a new draft). Answer: `BalancePreview`.
+ */
+export const balancePreviewBodySchema = z.strictObject({
+  web: z.unknown(),
   method: z.enum(['input', 'output', 'average', 'least-change'], { error: 'method must be one of input, output, average, least-change' }).default('least-change'),
-  save: z.boolean().default(false),
 });
+
+export interface BalancePreview {
+  method: 'input' | 'output' | 'average' | 'least-change';
+  wasBalanced: boolean;
+  web: Web;
+  changes: BalanceChange[];
+}
 
 /** One changed number of a balancing, for the "what changed" table. */
 export interface BalanceChange {
