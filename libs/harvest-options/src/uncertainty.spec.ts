@@ -91,18 +91,35 @@ describe('optionUncertainty (Monte Carlo of METHODS.md §8)', () => {
 });
 
 describe('draws', () => {
-  it('lognormal factors have mean 1 and the flux’s cv (σ² = ln(1 + cv²), μ = −σ²/2)', () => {
-    const network = createNetwork({ name: 'one', unit: 'u', compartments: [{ id: 'a', name: 'A', kind: 'producer' }], flows: [], imports: [{ to: 'a', value: 1, cv: 0.5 }], exports: [], respiration: [{ from: 'a', value: 1 }] });
-    const factors = Array.from({ length: 20000 }, (_, k) => lognormalDraw(network, 0.1, drawSeed(9, k)));
-    const mean = (i: number) => factors.reduce((s, f) => s + f[i], 0) / factors.length;
-    const cv = (i: number) => {
-      const m = mean(i);
-      return Math.sqrt(factors.reduce((s, f) => s + (f[i] - m) ** 2, 0) / factors.length) / m;
-    };
-    expect(mean(0)).toBeCloseTo(1, 1);
-    expect(mean(1)).toBeCloseTo(1, 2);
-    expect(cv(0)).toBeCloseTo(0.5, 1);
-    expect(cv(1)).toBeCloseTo(0.1, 2);
+  it('lognormal factors have mean 1 and log-spread σ² = ln(1 + cv²), μ = −σ²/2, to within sampling error', () => {
+    const network = createNetwork({
+      name: 'spread',
+      unit: 'u',
+      compartments: [{ id: 'a', name: 'A', kind: 'producer' }, { id: 'b', name: 'B', kind: 'consumer' }],
+      flows: [{ from: 'a', to: 'b', value: 1, cv: 1 }],
+      imports: [{ to: 'a', value: 2, cv: 0.5 }],
+      exports: [],
+      respiration: [{ from: 'a', value: 1 }, { from: 'b', value: 1, cv: 2 }],
+    });
+    const defaultCv = 0.1;
+    const draws = 20000;
+    const logFactors = Array.from({ length: draws }, (_, k) =>
+      lognormalDraw(network, defaultCv, drawSeed(9, k)).map((x, i) => Math.log(x / network.fluxes[i].value)),
+    );
+    network.fluxes.forEach((flux, i) => {
+      const cv = flux.cv ?? defaultCv;
+      const sigma2 = Math.log1p(cv * cv);
+      const logs = logFactors.map((draw) => draw[i]);
+      const logMean = logs.reduce((s, x) => s + x, 0) / draws;
+      const logVariance = logs.reduce((s, x) => s + (x - logMean) ** 2, 0) / (draws - 1);
+      // five standard errors of a normal sample's mean (σ/√n) and variance (σ²·√(2/(n−1))): a spread of
+      // cv² instead of ln(1 + cv²) is off by 12 or more of them for cv ≥ 0.5
+      expect(Math.abs(logVariance - sigma2)).toBeLessThan(5 * sigma2 * Math.sqrt(2 / (draws - 1)));
+      expect(Math.abs(logMean + sigma2 / 2)).toBeLessThan(5 * Math.sqrt(sigma2 / draws));
+      // the factor itself has standard deviation cv, so its sample mean lies within 5 cv/√n of 1
+      const mean = logs.reduce((s, x) => s + Math.exp(x), 0) / draws;
+      expect(Math.abs(mean - 1)).toBeLessThan((5 * cv) / Math.sqrt(draws));
+    });
   });
 
   it('draw seeds depend on the seed and the draw index only', () => {
