@@ -4,6 +4,7 @@ import cone from '../../../tests/fixtures/cone-spring.json';
 import { mixedTrophicImpact } from './mixed-trophic-impact';
 import { createNetwork, networkFromJson } from './network';
 import { balancedWeb } from './testing/arbitraries';
+import { balancedByRespiration } from './testing/balanced-by-respiration';
 
 // Ulanowicz & Puccia 1990, Coenoses 5:7-16; keystoneness: Libralato, Christensen & Pauly 2006, Ecol. Model. 195:153-171
 
@@ -61,6 +62,34 @@ describe('mixed trophic impact (Ulanowicz & Puccia 1990)', () => {
     expect(keystoneness![0]).toBeCloseTo(Math.log10((Math.SQRT2 / 1.7) * (6 / 16)), 12);
     // ε_carnivore = sqrt(0.1² + 0.2²)/1.7, p = 1/16
     expect(keystoneness![2]).toBeCloseTo(Math.log10((Math.sqrt(0.05) / 1.7) * (15 / 16)), 12);
+  });
+
+  it('keystoneness of a web with detritus and a detritus loop, worked by hand from METHODS.md §6', () => {
+    // plant (import 100) → herbivore 40, → detritus 30; herbivore → carnivore 10, → detritus 10;
+    // carnivore → detritus 2; detritus → herbivore 10; throughflows 100, 50, 10, 42
+    const web = balancedByRespiration(
+      'loop',
+      { plant: 'producer', herbivore: 'consumer', carnivore: 'consumer', detritus: 'detritus' },
+      [['plant', 'herbivore', 40], ['plant', 'detritus', 30], ['herbivore', 'carnivore', 10], ['herbivore', 'detritus', 10], ['carnivore', 'detritus', 2], ['detritus', 'herbivore', 10]],
+      { plant: 100 },
+    );
+    const biomass: Record<string, number> = { plant: 20, herbivore: 5, carnivore: 1, detritus: 100 };
+    const { direct, total, keystoneness } = mixedTrophicImpact(
+      createNetwork({ ...web, compartments: web.compartments.map((c) => ({ ...c, biomass: biomass[c.id] })) }),
+    );
+    // q_ij = T_ij / T_j − T_ji / T_j (no second term for the detritus row)
+    expectMatrixClose(direct, [[0, 4 / 5, 0, 30 / 42], [-2 / 5, 0, 1, 0], [0, -1 / 5, 0, 2 / 42], [0, 1 / 5, 0, 0]], 12);
+    // (I − Q)⁻¹ − I by Gauss–Jordan elimination in exact fractions (python3 fractions): every entry over 823
+    expectMatrixClose(
+      total,
+      [[-198, 495, 495, 470], [-210, -298, 525, -125], [40, -100, -100, 63], [-42, 105, 105, -25]].map((row) => row.map((m) => m / 823)),
+      12,
+    );
+    // ε_i over the living compartments only, and p_i the share of the living biomass 26 (detritus's 100 left out)
+    expect(keystoneness![0]).toBeCloseTo(Math.log10((Math.hypot(495, 495) / 823) * (1 - 20 / 26)), 12); // −0.707102
+    expect(keystoneness![1]).toBeCloseTo(Math.log10((Math.hypot(210, 525) / 823) * (1 - 5 / 26)), 12); // −0.255766
+    expect(keystoneness![2]).toBeCloseTo(Math.log10((Math.hypot(40, 100) / 823) * (1 - 1 / 26)), 12); // −0.900204
+    expect(keystoneness![3]).toBeNull();
   });
 
   it('gives no keystoneness to detritus or to a compartment without biomass', () => {
