@@ -65,6 +65,16 @@ describe('informationIndices', () => {
     expect(Object.values(indices.overheadParts).every((part) => part > 0)).toBe(true);
   });
 
+  // Regression targets computed from the table of METHODS.md §10, not published values: each entry x of X
+  // contributes −x log2(x² / (T_i. T_.j)) to the part of its row (imports) or column (exports, respiration,
+  // else redundancy), summed directly in python3 over the 18 nonzero entries.
+  it('Cone Spring: the overhead parts on imports, exports, respiration and redundancy (computed from the table)', () => {
+    expect(indices.overheadParts.imports).toBeCloseTo(6221.750696, 4);
+    expect(indices.overheadParts.exports).toBeCloseTo(7810.812423, 4);
+    expect(indices.overheadParts.respiration).toBeCloseTo(35274.218943, 4);
+    expect(indices.overheadParts.redundancy).toBeCloseTo(29832.464324, 4);
+  });
+
   it('works on an unbalanced web', () => {
     const web = structuredClone(cone) as Web;
     web.imports[0].value = 20000;
