@@ -1,9 +1,12 @@
+import { idMap, ownValue } from '@seinework/network-analysis';
+
 /**
  * Option − baseline for every numeric value of two analysis documents (METHODS.md §11), maps
  * compared key by key. A key present on one side only counts as 0 there (a new fishery's catch, a
  * flow that disappears), except a mean trophic level, which has no value without a catch: null.
  * null on either side gives null; non-numeric fields (unit, side of the fitness peak, warnings,
- * cycle listings) are left out.
+ * cycle listings) are left out. Keys are compartment ids and fleet names as much as field names:
+ * only own properties are read and the result is built of null-prototype maps (id-map.ts).
  */
 
 export type DifferenceValue = number | null | DifferenceValue[] | { [key: string]: DifferenceValue };
@@ -16,7 +19,7 @@ const NO_ZERO = new Set(['meanTrophicLevelOfCatch', 'trophicLevels']);
 export type DifferenceMap = { [key: string]: DifferenceValue };
 
 export function difference(baseline: object, option: object): DifferenceMap {
-  return (diff(baseline, option, false) as DifferenceMap | undefined) ?? {};
+  return (diff(baseline, option, false) as DifferenceMap | undefined) ?? idMap();
 }
 
 function diff(before: unknown, after: unknown, noZero: boolean): DifferenceValue | undefined {
@@ -39,12 +42,12 @@ function diff(before: unknown, after: unknown, noZero: boolean): DifferenceValue
     return result.length > 0 ? result : undefined;
   }
   if (isObject(before) || isObject(after)) {
-    const a = isObject(before) ? before : {};
-    const b = isObject(after) ? after : {};
-    const result: DifferenceMap = {};
+    const a = isObject(before) ? before : idMap();
+    const b = isObject(after) ? after : idMap();
+    const result: DifferenceMap = idMap();
     for (const key of new Set([...Object.keys(a), ...Object.keys(b)])) {
       if (LEFT_OUT.has(key)) continue;
-      const d = diff(a[key], b[key], noZero || NO_ZERO.has(key));
+      const d = diff(ownValue(a, key), ownValue(b, key), noZero || NO_ZERO.has(key));
       if (d !== undefined) result[key] = d;
     }
     return Object.keys(result).length > 0 ? result : undefined;

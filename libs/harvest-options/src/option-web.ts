@@ -95,6 +95,8 @@ export function planOption(baseline: Network, adjustments: readonly Adjustment[]
     if (isNewFleet && a.type !== 'open-fishery') {
       return refuse(position, `unknown fleet "${a.fleet}" (fleets: ${listed(baseline.fleets)}); use open-fishery for a new fleet`);
     }
+    // fleets are rows and columns of the mixed trophic impact table beside the compartments
+    if (isNewFleet && baseline.index.has(a.fleet)) return refuse(position, `fleet "${a.fleet}" has the name of a compartment; give the new fleet another name`);
     if (closedBy.has(a.fleet)) return refuse(position, `contradicts adjustments[${closedBy.get(a.fleet)}], which closes fleet "${a.fleet}"`);
     if (i === undefined) return;
     const earlier = claims.get(key(a.fleet, i));

@@ -1,5 +1,5 @@
-import type { Analysis, HarvestOption, Web } from '@seinework/contracts';
-import { analyze, createNetwork, fishingInBalance, requireAnalysable, toWeb, type AnalyzeOptions } from '@seinework/network-analysis';
+import type { Analysis, FleetSummary, HarvestOption, Web } from '@seinework/contracts';
+import { analyze, createNetwork, fishingInBalance, ownValue, requireAnalysable, toWeb, type AnalyzeOptions } from '@seinework/network-analysis';
 import { applyOption } from './apply-option';
 import { difference, type DifferenceMap } from './difference';
 
@@ -42,10 +42,10 @@ export function runOption(web: Web, option: HarvestOption, options: AnalyzeOptio
 export function differenceWithFib(baseline: Analysis, option: Analysis): DifferenceMap {
   const result = difference(baseline, option);
   result['fishingInBalance'] = fib(baseline.totalCatch, baseline.meanTrophicLevelOfCatch, option.totalCatch, option.meanTrophicLevelOfCatch);
-  const fleets = (result['fleets'] ?? {}) as Record<string, Record<string, unknown>>;
+  const fleets = (ownValue(result, 'fleets') ?? {}) as Record<string, Record<string, unknown>>;
   for (const [name, change] of Object.entries(fleets)) {
-    const before = baseline.fleets[name];
-    const after = option.fleets[name];
+    const before = ownValue(baseline.fleets, name) as FleetSummary | undefined;
+    const after = ownValue(option.fleets, name) as FleetSummary | undefined;
     change['fishingInBalance'] = fib(before?.catch ?? 0, before?.meanTrophicLevelOfCatch ?? null, after?.catch ?? 0, after?.meanTrophicLevelOfCatch ?? null);
   }
   return result;

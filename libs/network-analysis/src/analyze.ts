@@ -7,6 +7,7 @@ import { fisheryIndicators } from './fishery-indicators';
 import { informationIndices } from './information-indices';
 import { mixedTrophicImpact } from './mixed-trophic-impact';
 import { createNetwork, parseWeb, type Network } from './network';
+import { idMap } from './id-map';
 import { fitnessPosition, robustnessGradient } from './robustness';
 import { dependencies } from './total-dependency';
 import { trophicLadder } from './trophic-ladder';
@@ -14,7 +15,8 @@ import { trophicLevels } from './trophic-levels';
 
 /**
  * Composes every method of METHODS.md §1–§6 and §9 into the analysis document of §11.
- * Numbers are never rounded here; maps are keyed by compartment id and fleets by name.
+ * Numbers are never rounded here; maps are keyed by compartment id and fleets by name, as
+ * null-prototype objects (id-map.ts) so that no id can reach a prototype.
  */
 
 export interface AnalyzeOptions {
@@ -56,7 +58,7 @@ export function analyze(network: Network, options: AnalyzeOptions = {}): Analysi
     mixedTrophicImpact: square(impact.ids, impact.ids, impact.total),
     keystoneness: impact.keystoneness === null ? null : byId(ids, impact.keystoneness),
     robustnessGradient: existingFlows(robustnessGradient(network)),
-    fleets: Object.fromEntries(
+    fleets: idMap(
       Object.entries(fishery.fleets).map(([fleet, f]) => [
         fleet,
         {
@@ -131,19 +133,19 @@ function scalarsFrom(
 }
 
 function byId<T>(ids: readonly string[], values: readonly T[]): ById<T> {
-  return Object.fromEntries(ids.map((id, i) => [id, values[i]]));
+  return idMap(ids.map((id, i) => [id, values[i]]));
 }
 
 function square(rows: readonly string[], columns: readonly string[], matrix: readonly (readonly number[])[]): Matrix2 {
-  return Object.fromEntries(rows.map((row, i) => [row, Object.fromEntries(columns.map((column, j) => [column, matrix[i][j]]))]));
+  return idMap(rows.map((row, i) => [row, idMap(columns.map((column, j) => [column, matrix[i][j]]))]));
 }
 
 /** Only the entries of internal flows that exist in the web (T_ij > 0), keyed from → to. */
 function byFlow(network: Network, matrix: readonly (readonly number[])[]): Matrix2 {
-  const result: Matrix2 = {};
+  const result: Matrix2 = idMap();
   network.T.forEach((row, i) =>
     row.forEach((flow, j) => {
-      if (flow > 0) (result[network.ids[i]] ??= {})[network.ids[j]] = matrix[i][j];
+      if (flow > 0) (result[network.ids[i]] ??= idMap())[network.ids[j]] = matrix[i][j];
     }),
   );
   return result;

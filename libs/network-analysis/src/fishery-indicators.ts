@@ -1,5 +1,6 @@
 import type { Network } from './network';
 import { requireAnalysable } from './balance-check';
+import { idMap } from './id-map';
 import { identityMinus, solve } from './linear-algebra';
 import { WebError } from './web-error';
 import { upstreamOf } from './reachability';
@@ -65,7 +66,7 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
         : ruleOfThumbPrimaryProductionRequired(
             Y.flatMap((y, i) => (y > 0 ? [{ tonnesWet: y * tonnesPerUnit, trophicLevel: trophicLevels[i] }] : [])),
           ),
-    fleets: Object.fromEntries(
+    fleets: idMap(
       fleets.map((fleet, f) => [fleet, catchIndicators(network, catches[f], production, trophicLevels, prices(network, fleet))]),
     ),
   };

@@ -7,6 +7,7 @@ export * from './cycle-removal';
 export * from './cycles';
 export * from './finn-cycling-index';
 export * from './fishery-indicators';
+export * from './id-map';
 export * from './information-indices';
 export * from './least-change';
 export * from './mixed-trophic-impact';

@@ -113,6 +113,8 @@ export function createNetwork(web: Web): Network {
     if (f.fleet !== undefined) once(`harvest ${f.fleet} ${f.from}`, where, `catch of ${f.from} by fleet ${f.fleet}`);
     else once(`export ${f.from}`, where, `export from ${f.from}`);
     if (f.price !== undefined && f.fleet === undefined) problems.push(`${where}: a price is given for an export with no fleet`);
+    // fleets are rows and columns of the mixed trophic impact table beside the compartments
+    if (f.fleet !== undefined && index.has(f.fleet)) problems.push(`${where}: fleet "${f.fleet}" has the name of a compartment; give the fleet another name`);
     fluxes.push({ kind: 'export', from, to: OUTSIDE, value: f.value, cv: f.cv, fleet: f.fleet, price: f.price });
   });
   web.respiration.forEach((f, k) => {
