@@ -7,6 +7,9 @@ import { balancingRoutes } from './http/balancing-routes';
 import { errorHandler, RequestError } from './http/errors';
 import { optionRoutes } from './http/option-routes';
 import { originCheck } from './http/origin-check';
+import { mountAccounts } from './auth/accounts';
+import type { SignInLimits } from './auth/sign-in-limits';
+import type { AppDatabase } from './db/database';
 import type { DrawRunner } from '@seinework/harvest-options';
 
 export interface AppSettings {
@@ -16,13 +19,23 @@ export interface AppSettings {
   readonly staticDir?: string;
   /** Worker threads for uncertainty draws (the server's, started once); draws run in process without it. */
   readonly drawPool?: DrawRunner;
+  /** The database: the stateful routes (accounts, webs, …) are mounted only when it is given. */
+  readonly database?: AppDatabase;
+  /** Where people reach the app (Origin check, Secure cookies, links in e-mail); default http://127.0.0.1:4300. */
+  readonly publicOrigin?: string;
+  /** Demo accounts may sign in (NODE_ENV !== 'production'); default true. */
+  readonly demoMode?: boolean;
+  /** Sign-in rate limits (tests lower them); defaults in auth/sign-in-limits.ts. */
+  readonly signInLimits?: SignInLimits;
+  /** The clock of the sign-in limits (tests move it on). */
+  readonly now?: () => Date;
 }
 
 export async function createApp(settings: AppSettings): Promise<Express> {
   const app = express();
   app.disable('x-powered-by');
   app.use(express.json({ limit: '5mb' }));
-  app.use('/api', originCheck());
+  app.use('/api', originCheck(settings.publicOrigin ? [settings.publicOrigin] : []));
   app.get('/api/health', (_request, response) => {
     response.json({ status: 'ok' });
   });
@@ -30,6 +43,11 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   app.use('/api/analyses', analysisRoutes());
   app.use('/api/balancing', balancingRoutes());
   app.use('/api/options', optionRoutes({ drawPool: settings.drawPool }));
+  if (settings.database) {
+    const publicOrigin = settings.publicOrigin ?? 'http://127.0.0.1:4300';
+    // the session reader comes first: every stateful router below sees the signed-in person
+    mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
+  }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.path}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {
     const staticDir = settings.staticDir;

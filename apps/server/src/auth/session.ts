@@ -1,0 +1,95 @@
+import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
+import { Lucia, TimeSpan } from 'lucia';
+import type { CurrentUser, Role } from '@seinework/contracts';
+import type { Db } from '../db/database';
+import { sessions as sessionTable, users } from '../db/schema';
+
+/**
+ * Sessions: the only module that knows lucia (its upstream maintenance ended; see STACK.md), so that
+ * it can be swapped for @oslojs sessions behind the same interface.
+ *
+ * A session lasts SESSION_IDLE_HOURS after its last use: lucia extends it (and the cookie is
+ * re-sent) once it is past half its life, so an idle session ends between 6 and 12 hours after
+ * the last request and an active one keeps going.
+ */
+
+export const SESSION_COOKIE = 'seinework_session';
+export const SESSION_IDLE_HOURS = 12;
+
+interface UserAttributes {
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+}
+
+export interface ValidSession {
+  readonly sessionId: string;
+  readonly user: CurrentUser;
+  /** Set when the session was extended: send it back so the browser's cookie follows. */
+  readonly refreshedCookie?: string;
+}
+
+export interface Sessions {
+  /** Starts a session; answers the Set-Cookie value. */
+  create(userId: string): Promise<{ sessionId: string; cookie: string }>;
+  /** The session a Cookie header carries, or null (none, unknown, expired, or its user deactivated). */
+  validate(cookieHeader: string | undefined): Promise<ValidSession | null>;
+  invalidate(sessionId: string): Promise<void>;
+  /** Ends every session of a person, except keepSessionId (the one that changed the password). */
+  invalidateUserSessions(userId: string, keepSessionId?: string): Promise<void>;
+  /** The Set-Cookie value that removes the session cookie. */
+  blankCookie(): string;
+}
+
+export function createSessions(db: Db, options: { secureCookies: boolean }): Sessions {
+  const lucia = new Lucia(new DrizzlePostgreSQLAdapter(db, sessionTable, users), {
+    sessionExpiresIn: new TimeSpan(SESSION_IDLE_HOURS, 'h'),
+    sessionCookie: {
+      name: SESSION_COOKIE,
+      // a browser cookie that ends with the browser too; the server-side expiry is what counts
+      expires: false,
+      attributes: { sameSite: 'lax', secure: options.secureCookies, path: '/' },
+    },
+    getUserAttributes: (attributes) => {
+      const { email, name, role, active } = attributes as unknown as UserAttributes;
+      return { email, name, role, active };
+    },
+  });
+  return {
+    async create(userId) {
+      const session = await lucia.createSession(userId, {});
+      return { sessionId: session.id, cookie: lucia.createSessionCookie(session.id).serialize() };
+    },
+    async validate(cookieHeader) {
+      const sessionId = lucia.readSessionCookie(cookieHeader ?? '');
+      if (!sessionId) return null;
+      const { session, user } = await lucia.validateSession(sessionId);
+      if (!session) return null;
+      const attributes = user as unknown as UserAttributes & { id: string };
+      if (!attributes.active) {
+        await lucia.invalidateUserSessions(attributes.id);
+        return null;
+      }
+      return {
+        sessionId: session.id,
+        user: { id: attributes.id, email: attributes.email, name: attributes.name, role: attributes.role },
+        refreshedCookie: session.fresh ? lucia.createSessionCookie(session.id).serialize() : undefined,
+      };
+    },
+    invalidate: (sessionId) => lucia.invalidateSession(sessionId),
+    async invalidateUserSessions(userId, keepSessionId) {
+      if (!keepSessionId) return lucia.invalidateUserSessions(userId);
+      const all = await lucia.getUserSessions(userId);
+      await Promise.all(all.filter((s) => s.id !== keepSessionId).map((s) => lucia.invalidateSession(s.id)));
+    },
+    blankCookie: () => lucia.createBlankSessionCookie().serialize(),
+  };
+}
+
+/** Secure cookies everywhere except plain http on the loopback interface (development, tests). */
+export function needsSecureCookies(publicOrigin: string): boolean {
+  const url = new URL(publicOrigin);
+  const loopback = ['localhost', '127.0.0.1', '[::1]'].includes(url.hostname) || url.hostname.startsWith('127.');
+  return !(url.protocol === 'http:' && loopback);
+}

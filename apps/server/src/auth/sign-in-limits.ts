@@ -1,0 +1,55 @@
+import { eq, sql } from 'drizzle-orm';
+import { rateLimit, type RateLimitRequestHandler } from 'express-rate-limit';
+import type { Db } from '../db/database';
+import { users } from '../db/schema';
+import { RequestError } from '../http/errors';
+
+/**
+ * Two limits on guessing passwords. Per address (express-rate-limit, in memory: one server per
+ * data folder): failed sign-ins from one client address in a window. Per account (in the users
+ * table, so it holds across restarts and across servers sharing one PostgreSQL): failed sign-ins
+ * of one account in a window, whatever address they come from. Successful sign-ins count in neither.
+ */
+export interface SignInLimits {
+  readonly windowMinutes: number;
+  readonly perAddress: number;
+  readonly perAccount: number;
+}
+
+export const DEFAULT_SIGN_IN_LIMITS: SignInLimits = { windowMinutes: 15, perAddress: 30, perAccount: 5 };
+
+export function addressLimiter(limits: SignInLimits): RateLimitRequestHandler {
+  return rateLimit({
+    windowMs: limits.windowMinutes * 60_000,
+    limit: limits.perAddress,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_request, _response, next) => next(tooMany(limits)),
+  });
+}
+
+export function tooMany(limits: SignInLimits): RequestError {
+  return new RequestError(429, `Too many failed sign-in attempts: wait ${limits.windowMinutes} minutes and try again, or reset your password`);
+}
+
+export function accountLocked(user: { failedSignIns: number; failedSignInsSince: Date | null }, limits: SignInLimits, now: Date): boolean {
+  return user.failedSignIns >= limits.perAccount && user.failedSignInsSince !== null && now.getTime() - user.failedSignInsSince.getTime() < limits.windowMinutes * 60_000;
+}
+
+/** Counts one failure in one statement (concurrent failures are all counted); a window that ended starts again at 1. */
+export async function countFailure(db: Db, userId: string, limits: SignInLimits, now: Date): Promise<void> {
+  const windowStart = new Date(now.getTime() - limits.windowMinutes * 60_000);
+  const expired = sql`(${users.failedSignInsSince} is null or ${users.failedSignInsSince} <= ${windowStart.toISOString()}::timestamptz)`;
+  await db
+    .update(users)
+    .set({
+      failedSignIns: sql`case when ${expired} then 1 else ${users.failedSignIns} + 1 end`,
+      failedSignInsSince: sql`case when ${expired} then ${now.toISOString()}::timestamptz else ${users.failedSignInsSince} end`,
+    })
+    .where(eq(users.id, userId));
+}
+
+export async function clearFailures(db: Db, userId: string): Promise<void> {
+  await db.update(users).set({ failedSignIns: 0, failedSignInsSince: null }).where(eq(users.id, userId));
+}

@@ -1,0 +1,2 @@
+// Every table of the database; drizzle-kit generates the migrations in drizzle/ from this module.
+export * from './accounts';
