@@ -160,7 +160,11 @@ describe('trophicLadder', () => {
     it('efficiencies lie in [0, 1] and the mean is the geometric mean of levels II–IV', () => {
       property((network) => {
         const { levels, meanEfficiency } = trophicLadder(network);
-        for (const l of levels) if (l.efficiency !== null) expect(l.efficiency).toBeLessThanOrEqual(1 + TOLERANCE);
+        for (const l of levels) {
+          if (l.efficiency === null) continue;
+          expect(l.efficiency).toBeGreaterThanOrEqual(0);
+          expect(l.efficiency).toBeLessThanOrEqual(1 + TOLERANCE);
+        }
         const TE = levels.slice(1, 4).map((l) => l.efficiency ?? 0);
         if (meanEfficiency === null) expect(TE.length < 3 || TE.some((e) => e <= 0)).toBe(true);
         else expect(meanEfficiency ** 3).toBeCloseTo(TE[0] * TE[1] * TE[2], 12);
