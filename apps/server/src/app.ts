@@ -8,6 +8,7 @@ import { errorHandler, RequestError } from './http/errors';
 import { optionRoutes } from './http/option-routes';
 import { originCheck } from './http/origin-check';
 import { mountAccounts } from './auth/accounts';
+import { securityHeaders } from './security/security-headers';
 import type { SignInLimits } from './auth/sign-in-limits';
 import type { AppDatabase } from './db/database';
 import type { DrawRunner } from '@seinework/harvest-options';
@@ -34,6 +35,7 @@ export interface AppSettings {
 export async function createApp(settings: AppSettings): Promise<Express> {
   const app = express();
   app.disable('x-powered-by');
+  app.use(securityHeaders(settings.publicOrigin ?? 'http://127.0.0.1:4300'));
   app.use(express.json({ limit: '5mb' }));
   app.use('/api', originCheck(settings.publicOrigin ? [settings.publicOrigin] : []));
   app.get('/api/health', (_request, response) => {

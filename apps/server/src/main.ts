@@ -1,25 +1,45 @@
 import { resolve } from 'node:path';
 import { createDrawPool } from '@seinework/draw-pool';
 import { createApp } from './app';
+import { readConfig } from './config';
+import { openDatabase } from './db/database';
+import { DataDirInUseError } from './db/data-dir-lock';
+import { seedDemo } from './seed/seed-demo';
+import { DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users';
 
-const port = Number(process.env['PORT'] ?? 4300);
-const host = process.env['HOST'] ?? '127.0.0.1';
+const config = readConfig();
+const { port, host } = config;
 const root = resolve(import.meta.dirname, '../../..');
+
+const database = await openDatabase(config.databaseUrl ? { databaseUrl: config.databaseUrl } : { dataDir: resolve(config.dataDir) }).catch((error: unknown) => {
+  // a second server on the same data folder: say so plainly instead of a stack trace
+  if (error instanceof DataDirInUseError) {
+    console.error(error.message);
+    process.exit(1);
+  }
+  throw error;
+});
+if (config.demoMode && (await seedDemo(database, config.nodeEnv)).seeded) {
+  console.log(`Demo accounts created (password ${DEMO_PASSWORD}): ${DEMO_USERS.map((u) => u.email).join(', ')}`);
+}
 
 const drawPool = createDrawPool();
 const app = await createApp({
   demoWebPath: resolve(root, 'seeds/brannock-bay.json'),
   staticDir: resolve(root, 'dist/web/browser'),
   drawPool,
+  database,
+  publicOrigin: config.publicOrigin,
+  demoMode: config.demoMode,
 });
 const server = app.listen(port, host, () => {
   console.log(`Seinework is running at http://${host}:${port}/`);
 });
 
-// Stop cleanly: close the connections, then the draw workers.
+// Stop cleanly: close the connections, then the draw workers and the database (which frees the data folder).
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
-    server.close(() => void drawPool.destroy());
+    server.close(() => void Promise.all([drawPool.destroy(), database.close()]));
     server.closeAllConnections();
   });
 }
