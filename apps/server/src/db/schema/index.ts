@@ -1,2 +1,3 @@
 // Every table of the database; drizzle-kit generates the migrations in drizzle/ from this module.
 export * from './accounts';
+export * from './webs';
