@@ -11,6 +11,8 @@ import { mountAccounts } from './auth/accounts';
 import { securityHeaders } from './security/security-headers';
 import type { SignInLimits } from './auth/sign-in-limits';
 import type { AppDatabase } from './db/database';
+import { mountMailRoutes } from './mail/mail-routes';
+import type { Mailer } from './mail/mailer';
 import type { DrawRunner } from '@seinework/harvest-options';
 
 export interface AppSettings {
@@ -30,6 +32,8 @@ export interface AppSettings {
   readonly signInLimits?: SignInLimits;
   /** The clock of the sign-in limits (tests move it on). */
   readonly now?: () => Date;
+  /** Sends invitations and password resets; without it they are kept but not sent (and the admin is told). */
+  readonly mailer?: Mailer;
 }
 
 export async function createApp(settings: AppSettings): Promise<Express> {
@@ -48,7 +52,8 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   if (settings.database) {
     const publicOrigin = settings.publicOrigin ?? 'http://127.0.0.1:4300';
     // the session reader comes first: every stateful router below sees the signed-in person
-    mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
+    const { sessions } = mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
+    mountMailRoutes(app, { db: settings.database.db, sessions, mailer: settings.mailer, publicOrigin });
   }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.path}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {
