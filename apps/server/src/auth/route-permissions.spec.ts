@@ -1,0 +1,120 @@
+import type { Express } from 'express';
+import { ACTIONS, ROLES, can, type Action, type Role } from '@seinework/contracts';
+import { createTestApp, type TestAgent, type TestApp } from '../testing/test-app';
+
+/**
+ * The role × route matrix, walked exhaustively: every route the app registers must have a row
+ * here, and every row is tried signed out (401 unless public) and as each of the five roles
+ * (403 when the role may not take the row's action, anything but 401/403 when it may).
+ *
+ * OTHER SLICES: when you add a route, add its row below (method, path exactly as registered under
+ * /api, and `access`: an Action of libs/contracts/src/roles.ts, 'signed-in' for any signed-in person,
+ * or 'public'). The last test fails until every registered route has its row.
+ * Requests carry an empty JSON body and made-up ids: a permitted role then gets a 400 or 404
+ * without changing anything, which is enough to show it was let through.
+ */
+type Access = Action | 'signed-in' | 'public';
+interface RouteRow {
+  readonly method: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  readonly path: string;
+  readonly access: Access;
+}
+
+const ROUTES: readonly RouteRow[] = [
+  // stateless (no stored data): open to anyone, as before accounts existed
+  { method: 'GET', path: '/api/health', access: 'public' },
+  { method: 'GET', path: '/api/demo/baseline', access: 'public' },
+  { method: 'POST', path: '/api/analyses', access: 'public' },
+  { method: 'POST', path: '/api/balancing', access: 'public' },
+  { method: 'POST', path: '/api/options/run', access: 'public' },
+  { method: 'POST', path: '/api/options/sensitivity', access: 'public' },
+  // sign-in and the session (db-auth)
+  { method: 'POST', path: '/api/auth/sign-in', access: 'public' },
+  { method: 'POST', path: '/api/auth/sign-out', access: 'public' },
+  { method: 'GET', path: '/api/me', access: 'signed-in' },
+  { method: 'POST', path: '/api/auth/change-password', access: 'signed-in' },
+  // user administration and the audit log (db-auth)
+  { method: 'GET', path: '/api/admin/users', access: 'users.manage' },
+  { method: 'PATCH', path: '/api/admin/users/:id', access: 'users.manage' },
+  { method: 'GET', path: '/api/admin/audit', access: 'audit.read' },
+  // invitations, password resets and the outbox (mail)
+  { method: 'POST', path: '/api/admin/invitations', access: 'users.manage' },
+  { method: 'GET', path: '/api/admin/invitations', access: 'users.manage' },
+  { method: 'DELETE', path: '/api/admin/invitations/:id', access: 'users.manage' },
+  { method: 'GET', path: '/api/admin/outbox', access: 'outbox.read' },
+  { method: 'GET', path: '/api/auth/invitations/:token', access: 'public' },
+  { method: 'POST', path: '/api/auth/invitations/:token/accept', access: 'public' },
+  { method: 'POST', path: '/api/auth/password-reset', access: 'public' },
+  { method: 'POST', path: '/api/auth/password-reset/:token', access: 'public' },
+];
+
+/** Every route of the app as `METHOD /path`, read from Express's router (mounted routers included). */
+function registeredRoutes(app: Express): string[] {
+  interface Layer {
+    rawPath?: string;
+    route?: { path: string; methods: Record<string, boolean> };
+    handle: { stack?: Layer[] };
+  }
+  const found: string[] = [];
+  const walk = (stack: Layer[], prefix: string) => {
+    for (const layer of stack) {
+      if (layer.route) {
+        for (const [method, on] of Object.entries(layer.route.methods)) if (on && method !== '_all') found.push(`${method.toUpperCase()} ${join(prefix, layer.route.path)}`);
+      } else if (layer.handle.stack) {
+        walk(layer.handle.stack, join(prefix, typeof layer.rawPath === 'string' ? layer.rawPath : ''));
+      }
+    }
+  };
+  walk((app as unknown as { router: { stack: Layer[] } }).router.stack, '');
+  return [...new Set(found)].sort();
+}
+
+function join(prefix: string, path: string): string {
+  const joined = `${prefix}/${path}`.replace(/\/+/g, '/');
+  return joined.length > 1 ? joined.replace(/\/$/, '') : joined;
+}
+
+function send(agent: TestAgent, row: RouteRow) {
+  const path = row.path.replace(/:(\w+)/g, (_m, name: string) => `no-such-${name}`);
+  const request = agent[row.method.toLowerCase() as 'get' | 'post' | 'patch' | 'put' | 'delete'](path);
+  return row.method === 'GET' ? request : request.send({});
+}
+
+const allowed = (role: Role, access: Access) => access === 'public' || access === 'signed-in' || can(role, access);
+
+let t: TestApp;
+const agents = new Map<Role, TestAgent>();
+beforeAll(async () => {
+  t = await createTestApp();
+  for (const role of ROLES) agents.set(role, await t.signInAs(role));
+}, 60_000);
+afterAll(() => t.close());
+
+describe('role × route matrix', () => {
+  describe.each(ROUTES)('$method $path ($access)', (row) => {
+    it(row.access === 'public' ? 'is open signed out' : 'answers 401 signed out', async () => {
+      const response = await send(t.anonymous(), row);
+      if (row.access === 'public') expect([401, 403]).not.toContain(response.status);
+      else expect(response.status).toBe(401);
+    });
+
+    it.each(ROLES.filter((role) => row.access !== 'public'))('as %s: let through or 403 as the role table says', async (role) => {
+      const response = await send(agents.get(role)!, row);
+      if (allowed(role, row.access)) expect([401, 403], JSON.stringify(response.body)).not.toContain(response.status);
+      else {
+        expect(response.status).toBe(403);
+        expect(response.body.error).toContain(row.access);
+      }
+    });
+  });
+
+  it('has a row for every route the app registers, and no row for a route that does not exist', () => {
+    const registered = registeredRoutes(t.app);
+    const rows = ROUTES.map((row) => `${row.method} ${row.path}`).sort();
+    expect(rows).toEqual(registered);
+  });
+
+  it('names only actions of the role table', () => {
+    for (const row of ROUTES) expect(['public', 'signed-in', ...ACTIONS]).toContain(row.access);
+  });
+});
