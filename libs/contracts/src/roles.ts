@@ -1,48 +1,7 @@
 import { z } from 'zod';
+import { ROLES } from './permissions';
 
-/**
- * The five roles of PRODUCT.md and what each may do: the one table the server enforces on every
- * route and the browser reads to hide what a role may not do. Later slices add their actions here.
- */
+/** The role × action table lives in permissions.ts (no zod); this adds the schema that validates a role. */
+export * from './permissions';
 
-export const ROLES = ['admin', 'analyst', 'council', 'stakeholder', 'staff'] as const;
 export const roleSchema = z.enum(ROLES, { error: `role must be one of ${ROLES.join(', ')}` });
-export type Role = z.infer<typeof roleSchema>;
-
-export const ACTIONS = [
-  /** Read published web versions (baselines). */
-  'webs.read-published',
-  /** Read draft versions too (nobody sees a draft that was not shared with them). */
-  'webs.read-drafts',
-  /** Create a web from WEB.json or an upload, or clone a version into a new web. */
-  'webs.create',
-  /** Save draft versions, clone a published version into a new draft, balance a draft. */
-  'webs.edit',
-  /** Publish a draft version (it becomes immutable). */
-  'webs.publish',
-  /** List users, invite, change roles, deactivate. */
-  'users.manage',
-  /** Read the audit log. */
-  'audit.read',
-  /** Read the outbox of sent e-mail. */
-  'outbox.read',
-] as const;
-export type Action = (typeof ACTIONS)[number];
-
-const PERMISSIONS: Readonly<Record<Role, readonly Action[]>> = {
-  admin: ACTIONS,
-  analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish'],
-  council: ['webs.read-published'],
-  staff: ['webs.read-published'],
-  stakeholder: [],
-};
-
-/** Whether a role may take an action: the single rule behind every server check and every hidden button. */
-export function can(role: Role, action: Action): boolean {
-  return PERMISSIONS[role].includes(action);
-}
-
-/** Every action a role may take, for the browser's session state. */
-export function actionsOf(role: Role): Action[] {
-  return [...PERMISSIONS[role]];
-}

@@ -1,6 +1,22 @@
 import { Routes } from '@angular/router';
+import { allowedTo, signedInGuard } from './auth/signed-in-guard';
 
 export const routes: Routes = [
-  { path: '', loadComponent: () => import('./baselines/baseline-overview').then((m) => m.BaselineOverview), title: 'Seinework — baseline' },
-  { path: '**', redirectTo: '' },
+  // open to everyone: signing in, and the links sent by e-mail
+  { path: 'sign-in', loadComponent: () => import('./auth/sign-in').then((m) => m.SignIn), title: 'Sign in — Seinework' },
+  { path: 'invitation/:token', loadComponent: () => import('./auth/accept-invitation').then((m) => m.AcceptInvitation), title: 'Join Seinework' },
+  { path: 'reset-password', loadComponent: () => import('./auth/reset-password-request').then((m) => m.ResetPasswordRequest), title: 'Reset your password — Seinework' },
+  { path: 'reset-password/:token', loadComponent: () => import('./auth/reset-password').then((m) => m.ResetPassword), title: 'Choose a new password — Seinework' },
+  // everything else is behind sign-in
+  {
+    path: '',
+    canActivateChild: [signedInGuard],
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'webs' },
+      { path: 'webs', loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
+      { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
+      { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
+      { path: '**', redirectTo: 'webs' },
+    ],
+  },
 ];

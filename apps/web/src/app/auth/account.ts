@@ -1,0 +1,53 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { AuthApi } from './auth-api';
+import { newPasswordValidators, passwordHint, passwordsMatch } from './new-password';
+import { problemMessage } from './problem-message';
+import { RoleLabelPipe } from './role-label';
+import { SessionStore } from './session-store';
+
+/** `/account`: who is signed in, and changing the password. */
+@Component({
+  selector: 'sw-account',
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, RoleLabelPipe],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './account.html',
+  styleUrl: './auth-page.scss',
+})
+export class Account {
+  private readonly api = inject(AuthApi);
+  protected readonly session = inject(SessionStore);
+  protected readonly passwordHint = passwordHint;
+  protected readonly form = inject(NonNullableFormBuilder).group(
+    { currentPassword: ['', Validators.required], password: ['', newPasswordValidators], confirm: ['', Validators.required] },
+    { validators: passwordsMatch },
+  );
+  protected readonly saving = signal(false);
+  protected readonly changed = signal(false);
+  protected readonly problem = signal<string | null>(null);
+
+  protected async changePassword(): Promise<void> {
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const { currentPassword, password } = this.form.getRawValue();
+    this.saving.set(true);
+    this.problem.set(null);
+    this.changed.set(false);
+    try {
+      await firstValueFrom(this.api.changePassword(currentPassword, password));
+      this.changed.set(true);
+      this.form.reset();
+    } catch (error) {
+      this.problem.set(problemMessage(error));
+    } finally {
+      this.saving.set(false);
+    }
+  }
+}

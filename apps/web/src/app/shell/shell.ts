@@ -1,0 +1,27 @@
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatToolbarModule } from '@angular/material/toolbar';
+import { RoleLabelPipe } from '../auth/role-label';
+import { SessionStore } from '../auth/session-store';
+import { Caution } from '../shared/caution';
+
+/** The frame of every page: the toolbar (mark, navigation, who is signed in), the page, the caution. */
+@Component({
+  selector: 'sw-shell',
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule, MatMenuModule, RoleLabelPipe, Caution],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './shell.html',
+  styleUrl: './shell.scss',
+})
+export class Shell {
+  protected readonly session = inject(SessionStore);
+  private readonly router = inject(Router);
+
+  protected async signOut(): Promise<void> {
+    await this.session.signOut();
+    await this.router.navigateByUrl('/sign-in');
+  }
+}

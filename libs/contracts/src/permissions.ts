@@ -1,0 +1,47 @@
+/**
+ * The five roles of PRODUCT.md and what each may do: the one table the server enforces on every
+ * route and the browser reads to hide what a role may not do. Later slices add their actions here.
+ * Free of zod on purpose: the browser app loads this table at start (through
+ * `@seinework/contracts/permissions`) without loading the whole schema library with it.
+ */
+
+export const ROLES = ['admin', 'analyst', 'council', 'stakeholder', 'staff'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ACTIONS = [
+  /** Read published web versions (baselines). */
+  'webs.read-published',
+  /** Read draft versions too (nobody sees a draft that was not shared with them). */
+  'webs.read-drafts',
+  /** Create a web from WEB.json or an upload, or clone a version into a new web. */
+  'webs.create',
+  /** Save draft versions, clone a published version into a new draft, balance a draft. */
+  'webs.edit',
+  /** Publish a draft version (it becomes immutable). */
+  'webs.publish',
+  /** List users, invite, change roles, deactivate. */
+  'users.manage',
+  /** Read the audit log. */
+  'audit.read',
+  /** Read the outbox of sent e-mail. */
+  'outbox.read',
+] as const;
+export type Action = (typeof ACTIONS)[number];
+
+const PERMISSIONS: Readonly<Record<Role, readonly Action[]>> = {
+  admin: ACTIONS,
+  analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish'],
+  council: ['webs.read-published'],
+  staff: ['webs.read-published'],
+  stakeholder: [],
+};
+
+/** Whether a role may take an action: the single rule behind every server check and every hidden button. */
+export function can(role: Role, action: Action): boolean {
+  return PERMISSIONS[role].includes(action);
+}
+
+/** Every action a role may take, for the browser's session state. */
+export function actionsOf(role: Role): Action[] {
+  return [...PERMISSIONS[role]];
+}
