@@ -72,6 +72,21 @@ describe('bottomUpResponse (donor control; Hannon 1973, Fath & Patten 1999)', ()
     expect(() => bottomUpResponse(planOption(baseline, [{ ...adjustments[0], amount: most * (1 + 1e-6) }]))).toThrow(/cannot supply/);
   });
 
+  it('a production cut to almost nothing still gives a balanced web (fuzz counterexample)', () => {
+    const web: Web = {
+      name: 'one producer',
+      unit: 'u',
+      compartments: [{ id: 'p', name: 'P', kind: 'producer' }],
+      flows: [],
+      imports: [{ to: 'p', value: 0.001 }],
+      exports: [],
+      respiration: [{ from: 'p', value: 0.001 }],
+    };
+    const option = bottomUpResponse(planOption(createNetwork(web), [{ type: 'scale-production', compartment: 'p', percent: -99.99999999426967 }]));
+    expect(option.z[0]).toBeGreaterThan(0);
+    expect(isBalanced(option, 1e-12)).toBe(true);
+  });
+
   it('a production change alone scales every flux of a single-producer web linearly', () => {
     fc.assert(
       fc.property(

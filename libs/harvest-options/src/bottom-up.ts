@@ -73,8 +73,12 @@ function donorFractions(plan: OptionPlan): Donor {
   const Phi = network.T.map((row, i) => row.map((t) => (nonHarvest[i] > 0 ? t / nonHarvest[i] : 0)));
   const Y = new Array<number>(n).fill(0);
   for (const c of plan.catches) Y[c.compartment] += c.amount;
-  const z = network.z.slice();
-  for (const [k, value] of plan.imports) z[network.fluxes[k].to] += value - network.fluxes[k].value;
+  // summed afresh from the new import values: adding (new − old) to z loses every digit of a cut to
+  // almost nothing (−99.99999999 %) and leaves the option web unbalanced
+  const z = new Array<number>(n).fill(0);
+  network.fluxes.forEach((f, k) => {
+    if (f.kind === 'import') z[f.to] += plan.imports.get(k) ?? f.value;
+  });
   return { Phi, Y, z };
 }
 
