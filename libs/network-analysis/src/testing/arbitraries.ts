@@ -31,12 +31,15 @@ export function anyStructureWeb(value: fc.Arbitrary<number>): fc.Arbitrary<Web> 
       const id = (i: number) => `c${i % n}`;
       const flows = new Map<string, { from: string; to: string; value: number }>();
       for (const [from, to, v] of links) if (from % n !== to % n) flows.set(`${id(from)}>${id(to)}`, { from: id(from), to: id(to), value: v });
+      // one import per compartment (a second one is a refusal of its own, tested with the web's format)
+      const imported = new Map<string, { to: string; value: number }>();
+      for (const [to, v] of imports) imported.set(id(to), { to: id(to), value: v });
       const web: Web = {
         name: 'fuzz',
         unit: 'u',
         compartments: kinds.map((kind, i) => ({ id: id(i), name: `C${i}`, kind })),
         flows: [...flows.values()],
-        imports: imports.map(([to, v]) => ({ to: id(to), value: v })),
+        imports: [...imported.values()],
         exports: [...new Map(fleets.map(([from, fleet, v]) => [`${id(from)}/${fleet}`, { from: id(from), value: v, fleet }])).values()],
         respiration: [],
       };
@@ -45,7 +48,11 @@ export function anyStructureWeb(value: fc.Arbitrary<number>): fc.Arbitrary<Web> 
         const inputs = sum(web.imports.filter((f) => f.to === id(i))) + sum(web.flows.filter((f) => f.to === id(i)));
         const outputs = sum(web.exports.filter((f) => f.from === id(i))) + sum(web.flows.filter((f) => f.from === id(i)));
         if (inputs > outputs) web.respiration.push({ from: id(i), value: inputs - outputs });
-        else if (outputs > inputs) web.imports.push({ to: id(i), value: outputs - inputs });
+        else if (outputs > inputs) {
+          const existing = web.imports.find((f) => f.to === id(i));
+          if (existing) existing.value += outputs - inputs;
+          else web.imports.push({ to: id(i), value: outputs - inputs });
+        }
       }
       return web;
     });
