@@ -4,6 +4,9 @@ import request from 'supertest';
 import type { Role } from '@seinework/contracts';
 import { createApp, type AppSettings } from '../app';
 import type { AppDatabase } from '../db/database';
+import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
+import { createMailer } from '../mail/mailer';
+import { outboxStore } from '../mail/outbox';
 import { DEMO_PASSWORD, demoEmail } from '../seed/demo-users';
 import { createTestDatabase } from './test-database';
 
@@ -14,6 +17,8 @@ export type TestAgent = ReturnType<typeof request.agent>;
 export interface TestApp {
   readonly app: Express;
   readonly database: AppDatabase;
+  /** The fake SMTP server the app's mailer sends to; what it receives is in the outbox (`GET /api/admin/outbox`). */
+  readonly smtp: FakeSmtp;
   /** An agent signed in as that role's demo user: it carries the session cookie and this site's Origin. */
   signInAs(role: Role): Promise<TestAgent>;
   /** An agent that is not signed in (it carries the Origin header too). */
@@ -27,16 +32,20 @@ export interface TestApp {
  */
 export async function createTestApp(overrides: Partial<AppSettings> = {}): Promise<TestApp> {
   const database = await createTestDatabase();
+  const smtp = await startFakeSmtp({ store: outboxStore(database.db) });
+  const mailer = createMailer(smtp.url);
   const app = await createApp({
     demoWebPath: resolve(import.meta.dirname, '../../../../seeds/brannock-bay.json'),
     database,
     publicOrigin: TEST_ORIGIN,
+    mailer,
     ...overrides,
   });
   const anonymous = () => request.agent(app).set('Origin', TEST_ORIGIN);
   return {
     app,
     database,
+    smtp,
     anonymous,
     async signInAs(role) {
       const agent = anonymous();
@@ -44,6 +53,10 @@ export async function createTestApp(overrides: Partial<AppSettings> = {}): Promi
       if (response.status !== 200) throw new Error(`Signing in as ${role} failed: ${response.status} ${JSON.stringify(response.body)}`);
       return agent;
     },
-    close: () => database.close(),
+    async close() {
+      mailer.close();
+      await smtp.close();
+      await database.close();
+    },
   };
 }
