@@ -1,4 +1,8 @@
 import { z } from 'zod';
+import { finiteNonNegative, finiteNumber } from './numbers';
+import { TEXT_LIMITS, textField } from './text';
+
+export { TEXT_LIMITS } from './text';
 
 /**
  * WEB.json — the project's own file format for a steady-state food web (METHODS.md §11).
@@ -6,18 +10,26 @@ import { z } from 'zod';
  * Unknown keys are refused everywhere so that a typo never silently drops data.
  */
 
-const finiteNonNegative = (what: string) =>
-  z
-    .number({ error: `${what} must be a number` })
-    .refine(Number.isFinite, { message: `${what} must be finite` })
-    .refine((v) => v >= 0, { message: `${what} must not be negative` });
+/**
+ * A flow's own coefficient of variation. 0 holds the flow exactly in least change and in the
+ * uncertainty draws. Above 0 it is a weight of least change ((cv × value)² is the flow's variance)
+ * and the spread of its lognormal draws: below 1e-6 the variance of a small flow vanishes in
+ * double precision and the flow would be held anyway, and above 10 the weights of one web would
+ * span more than its normal equations can resolve (the option's default cv, applied to every flow
+ * at once, stops at 2; one flow may be marked much less certain than the rest).
+ */
+export const FLOW_CV_LIMITS = { min: 1e-6, max: 10 } as const;
 
-const coefficientOfVariation = z
-  .number({ error: 'cv must be a number' })
-  .refine((v) => Number.isFinite(v) && v >= 0, { message: 'cv must be a finite number ≥ 0' })
+const coefficientOfVariation = finiteNumber('cv')
+  .superRefine((cv, ctx) => {
+    if (cv < 0) ctx.addIssue({ code: 'custom', message: 'cv must not be negative' });
+    else if (cv > FLOW_CV_LIMITS.max) ctx.addIssue({ code: 'custom', message: `cv must be at most ${FLOW_CV_LIMITS.max}` });
+    else if (cv > 0 && cv < FLOW_CV_LIMITS.min) ctx.addIssue({ code: 'custom', message: 'cv must be 0 (the flow held exactly) or at least 0.000001' });
+  })
   .optional();
 
-const id = z.string({ error: 'id must be a string' }).trim().min(1, 'id must not be empty');
+const id = textField('id', { max: TEXT_LIMITS.id, trim: true });
+const name = textField('name', { max: TEXT_LIMITS.name });
 
 export const compartmentKindSchema = z.enum(['producer', 'consumer', 'detritus'], {
   error: 'kind must be one of producer, consumer, detritus',
@@ -26,7 +38,7 @@ export type CompartmentKind = z.infer<typeof compartmentKindSchema>;
 
 export const compartmentSchema = z.strictObject({
   id,
-  name: z.string({ error: 'name must be a string' }).min(1, 'name must not be empty'),
+  name,
   kind: compartmentKindSchema,
   biomass: finiteNonNegative('biomass').optional(),
 });
@@ -48,7 +60,7 @@ export const exportSchema = z.strictObject({
   from: id,
   value: finiteNonNegative('export value'),
   /** A harvest is an export tagged with the fleet that lands it. */
-  fleet: z.string().trim().min(1, 'fleet must not be empty').optional(),
+  fleet: textField('fleet', { max: TEXT_LIMITS.id, trim: true }).optional(),
   /** Currency per tonne landed. */
   price: finiteNonNegative('price').optional(),
   cv: coefficientOfVariation,
@@ -61,8 +73,8 @@ export const respirationSchema = z.strictObject({
 });
 
 export const webSchema = z.strictObject({
-  name: z.string({ error: 'name must be a string' }).min(1, 'name must not be empty'),
-  unit: z.string({ error: 'unit must be a string' }).min(1, 'unit must not be empty'),
+  name,
+  unit: textField('unit', { max: TEXT_LIMITS.name }),
   areaKm2: finiteNonNegative('areaKm2').optional(),
   /** Tonnes wet weight per km² per year carried by one flow unit. */
   tonnesPerUnit: finiteNonNegative('tonnesPerUnit').optional(),
