@@ -5,19 +5,28 @@ import fc from 'fast-check';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import demo from '../../../seeds/brannock-bay.json';
 import { generateWeb } from '../../../libs/network-analysis/src/testing/generated-web';
+import { createDrawPool, type DrawPool } from '@seinework/draw-pool';
 import { createApp } from './app';
+import { createEngineJobs, type EngineJobs } from './engine/engine-jobs';
 import { HTTP_CYCLE_LIMITS } from './http/cycle-limits';
 
 let server: Server;
 let base: string;
+let drawPool: DrawPool;
+let engine: EngineJobs;
 
 beforeAll(async () => {
-  const app = await createApp({ demoWebPath: resolve(import.meta.dirname, '../../../seeds/brannock-bay.json') });
+  drawPool = createDrawPool(2);
+  engine = createEngineJobs({ drawPool, threads: 2, keepAlive: true });
+  const app = await createApp({ demoWebPath: resolve(import.meta.dirname, '../../../seeds/brannock-bay.json'), drawPool, engine });
   server = app.listen(0, '127.0.0.1');
   await new Promise((ready) => server.once('listening', ready));
   base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
 });
-afterAll(() => new Promise((done) => server.close(done)));
+afterAll(async () => {
+  await new Promise((done) => server.close(done));
+  await Promise.all([engine.destroy(), drawPool.destroy()]);
+});
 
 // Response bodies are read as loose JSON: the tests assert their shape.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -43,7 +52,7 @@ describe('server', () => {
 
   it('caps cycle enumeration for a dense web and says so, the cycled and acyclic flows still complete', async () => {
     const dense = generateWeb({ compartments: 40, seed: 3, density: 0.6 });
-    const response = await post('/api/analyses', JSON.stringify(dense));
+    const response = await post('/api/analyses?tables=all', JSON.stringify(dense));
     expect(response.status).toBe(200);
     const { cycles } = await json(response);
     expect(cycles.capped).toBe(true);
@@ -65,10 +74,10 @@ describe('server', () => {
   it('answers 422 naming each problem of an invalid or unbalanced web', async () => {
     const invalid = await post('/api/analyses', JSON.stringify({ ...cone, flows: [{ from: 'plants', to: 'fish', value: -1 }] }));
     expect(invalid.status).toBe(422);
-    expect((await json(invalid)).problems).toEqual(['flows[0].value: flow value must not be negative']);
+    expect((await json(invalid)).details).toEqual(['flows[0].value: flow value must not be negative']);
     const unbalanced = await post('/api/analyses', JSON.stringify({ ...cone, imports: [{ to: 'plants', value: 1 }] }));
     expect(unbalanced.status).toBe(422);
-    expect((await json(unbalanced)).problems.join(' ')).toMatch(/"plants" is unbalanced/);
+    expect((await json(unbalanced)).details.join(' ')).toMatch(/"plants" is unbalanced/);
   });
 
   it('balances a posted web by the method asked for, which then analyses', async () => {
@@ -82,7 +91,7 @@ describe('server', () => {
     }
     const unknown = await post('/api/balancing', JSON.stringify({ web: unbalanced, method: 'guess' }));
     expect(unknown.status).toBe(400);
-    expect((await json(unknown)).problems).toEqual(['method: method must be one of input, output, average, least-change']);
+    expect((await json(unknown)).details).toEqual(['method: method must be one of input, output, average, least-change']);
   });
 
   it('refuses state-changing requests from another site', async () => {
@@ -140,14 +149,14 @@ describe('server', () => {
       const option = { name: 'x', adjustments: [{ type: 'close-fleet', fleet: 'nobody' }] };
       const response = await post('/api/options/run', JSON.stringify({ web: cone, option }));
       expect(response.status).toBe(422);
-      expect((await json(response)).problems[0]).toMatch(/^adjustments\[0\] \(close-fleet "nobody"\): unknown fleet "nobody"/);
+      expect((await json(response)).details[0]).toMatch(/^adjustments\[0\] \(close-fleet "nobody"\): unknown fleet "nobody"/);
     });
 
     it('answers 422 to more draws than one request may hold', async () => {
       const option = { ...newDetritivoreFishery, uncertainty: { draws: 50_000, cv: 0.1, seed: 1 } };
       const response = await post('/api/options/run', JSON.stringify({ web: cone, option }));
       expect(response.status).toBe(422);
-      expect((await json(response)).problems[0]).toMatch(/at most 5000 draws per request/);
+      expect((await json(response)).details[0]).toMatch(/at most 5000 draws per request/);
     });
 
     it('answers 400 to a body of the wrong shape', async () => {

@@ -6,22 +6,30 @@ import { analysisRoutes } from './http/analysis-routes';
 import { balancingRoutes } from './http/balancing-routes';
 import { errorHandler, RequestError } from './http/errors';
 import { optionRoutes } from './http/option-routes';
+import { jsonBody } from './http/json-body';
 import { originCheck } from './http/origin-check';
+import { createEngineJobs, type EngineJobs } from './engine/engine-jobs';
 import { mountAccounts } from './auth/accounts';
 import { securityHeaders } from './security/security-headers';
 import type { SignInLimits } from './auth/sign-in-limits';
 import type { AppDatabase } from './db/database';
 import { mountMailRoutes } from './mail/mail-routes';
+import { webRoutes } from './webs/web-routes';
 import type { Mailer } from './mail/mailer';
-import type { DrawRunner } from '@seinework/harvest-options';
+import type { DrawPool } from '@seinework/draw-pool';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
   readonly demoWebPath: string;
   /** Built browser app (dist/web/browser); omitted in API-only tests. */
   readonly staticDir?: string;
-  /** Worker threads for uncertainty draws (the server's, started once); draws run in process without it. */
-  readonly drawPool?: DrawRunner;
+  /** Worker threads for uncertainty draws (the server's, started once); the engine starts its own without it. */
+  readonly drawPool?: DrawPool;
+  /**
+   * The engine off the main thread (analyses, option runs, sensitivity, balancing; the server's,
+   * started once). Without it the app starts one whose workers stop when idle.
+   */
+  readonly engine?: EngineJobs;
   /** The database: the stateful routes (accounts, webs, …) are mounted only when it is given. */
   readonly database?: AppDatabase;
   /** Where people reach the app (Origin check, Secure cookies, links in e-mail); default http://127.0.0.1:4300. */
@@ -40,22 +48,25 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   const app = express();
   app.disable('x-powered-by');
   app.use(securityHeaders(settings.publicOrigin ?? 'http://127.0.0.1:4300'));
-  app.use(express.json({ limit: '5mb' }));
-  app.use('/api', originCheck(settings.publicOrigin ? [settings.publicOrigin] : []));
+  // the origin check comes before the body is read: a foreign origin is refused whatever it sends
+  app.use('/api', originCheck(settings.publicOrigin ? [settings.publicOrigin] : undefined));
+  app.use(jsonBody());
+  const engine = settings.engine ?? createEngineJobs({ drawPool: settings.drawPool });
   app.get('/api/health', (_request, response) => {
     response.json({ status: 'ok' });
   });
   app.use('/api/demo', await demoRoutes(settings.demoWebPath));
-  app.use('/api/analyses', analysisRoutes());
-  app.use('/api/balancing', balancingRoutes());
-  app.use('/api/options', optionRoutes({ drawPool: settings.drawPool }));
+  app.use('/api/analyses', analysisRoutes(engine));
+  app.use('/api/balancing', balancingRoutes(engine));
+  app.use('/api/options', optionRoutes(engine));
   if (settings.database) {
     const publicOrigin = settings.publicOrigin ?? 'http://127.0.0.1:4300';
     // the session reader comes first: every stateful router below sees the signed-in person
     const { sessions } = mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
     mountMailRoutes(app, { db: settings.database.db, sessions, mailer: settings.mailer, publicOrigin });
+    app.use('/api/webs', webRoutes({ db: settings.database.db }));
   }
-  app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.path}`)));
+  app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.originalUrl.split('?')[0]}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {
     const staticDir = settings.staticDir;
     app.use(express.static(staticDir));

@@ -5,3 +5,5 @@ export * from './analysis';
 export * from './roles';
 export * from './accounts';
 export * from './webs-api';
+export * from './api-limits';
+export * from './duplicate-keys';

@@ -1,33 +1,50 @@
-import { availableParallelism } from 'node:os';
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Piscina } from 'piscina';
 import type { DrawJob, DrawOutcome, DrawRunner } from '@seinework/harvest-options';
+import { createWorkerPool, type WorkerPool } from './worker-pool';
 
 /**
- * Worker threads for the Monte Carlo draws of a harvest option (METHODS.md §8), on piscina: the
- * Node-only half of uncertainty, kept out of the pure engine. The server starts one pool for its
- * lifetime; the CLI starts one per run. Each worker runs chunks with the same engine as in process.
+ * Worker threads for the Monte Carlo draws of a harvest option (METHODS.md §8): the Node-only half
+ * of uncertainty, kept out of the pure engine. The server starts one pool for its lifetime; the
+ * CLI starts one per run. Each worker runs chunks with the same engine as in process.
  */
 
 export interface DrawPool extends DrawRunner {
+  /** The same workers, for one request: its chunks are dropped or stopped when `signal` aborts. */
+  withSignal(signal: AbortSignal): DrawRunner;
+  /** Chunks waiting for a worker now. */
+  readonly queueSize: number;
+  /** Chunks finished so far, aborted ones included. */
+  readonly completed: number;
   destroy(): Promise<void>;
 }
 
-export function createDrawPool(workers = availableParallelism()): DrawPool {
-  const threads = Math.max(1, Math.floor(workers));
-  const pool = new Piscina({
-    filename: fileURLToPath(new URL('./draw-worker.ts', import.meta.url)),
-    // the worker file is TypeScript: load it through tsx, in the tsx CLI and under vitest alike
-    execArgv: ['--import', pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href],
-    env: { ...process.env, TSX_TSCONFIG_PATH: process.env['TSX_TSCONFIG_PATH'] ?? fileURLToPath(new URL('../../../tsconfig.json', import.meta.url)) },
-    minThreads: threads,
-    maxThreads: threads,
-    idleTimeout: Infinity,
+export interface DrawPoolSettings {
+  /**
+   * Chunks that may wait for a worker (default 200: four requests of the most draws the API
+   * allows); one more is refused with QueueFullError.
+   */
+  readonly maxQueue?: number;
+  /** Keep the workers running between runs (default); otherwise they stop when idle. */
+  readonly keepAlive?: boolean;
+}
+
+export const DEFAULT_DRAW_QUEUE = 200;
+
+export function createDrawPool(workers?: number, settings: DrawPoolSettings = {}): DrawPool {
+  const pool: WorkerPool<DrawJob, DrawOutcome[]> = createWorkerPool(new URL('./draw-worker.ts', import.meta.url), {
+    threads: workers,
+    maxQueue: settings.maxQueue ?? DEFAULT_DRAW_QUEUE,
+    keepAlive: settings.keepAlive,
   });
   return {
-    workers: threads,
-    run: (job: DrawJob) => pool.run(job) as Promise<DrawOutcome[]>,
+    workers: pool.threads,
+    run: (job) => pool.run(job),
+    withSignal: (signal) => ({ workers: pool.threads, run: (job) => pool.run(job, signal) }),
+    get queueSize() {
+      return pool.queueSize;
+    },
+    get completed() {
+      return pool.completed;
+    },
     destroy: () => pool.destroy(),
   };
 }

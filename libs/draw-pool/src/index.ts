@@ -1,2 +1,3 @@
-/** Worker threads for uncertainty draws (Node only; the engine libs stay pure). */
+/** Worker threads for uncertainty draws and other engine work (Node only; the engine libs stay pure). */
 export * from './draw-pool';
+export * from './worker-pool';

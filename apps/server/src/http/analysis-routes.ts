@@ -1,12 +1,18 @@
 import { Router } from 'express';
-import { analyzeWeb } from '@seinework/network-analysis';
-import { HTTP_CYCLE_LIMITS } from './cycle-limits';
+import type { EngineJobs } from '../engine/engine-jobs';
+import { clientSignal, sendJsonText } from './client-signal';
+import { objectBody } from './request-body';
+import { requireWebWithinLimits } from './size-limits';
+import { tableSelection } from './table-selection';
 
-/** Stateless analysis of a web sent in the body (WEB.json); the engine validates and answers. */
-export function analysisRoutes(): Router {
+/** Stateless analysis of a web sent in the body (WEB.json): the engine checks and analyses it on a worker. */
+export function analysisRoutes(engine: EngineJobs): Router {
   const router = Router();
-  router.post('/', (request, response) => {
-    response.json(analyzeWeb(request.body, { cycles: HTTP_CYCLE_LIMITS }));
+  router.post('/', async (request, response) => {
+    const web = objectBody(request);
+    requireWebWithinLimits(web);
+    const tables = tableSelection(request);
+    sendJsonText(response, await engine.analyzeOffThread(web, { tables, signal: clientSignal(request, response) }));
   });
   return router;
 }

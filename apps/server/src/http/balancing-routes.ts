@@ -1,8 +1,10 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { describeIssues } from '@seinework/contracts';
-import { BALANCING_METHODS, balanceNetwork, createNetwork, isBalanced, parseWeb, toWeb } from '@seinework/network-analysis';
-import { RequestError } from './errors';
+import { BALANCING_METHODS } from '@seinework/network-analysis';
+import type { EngineJobs } from '../engine/engine-jobs';
+import { clientSignal, sendJsonText } from './client-signal';
+import { parsedBody } from './request-body';
+import { requireWebWithinLimits } from './size-limits';
 
 /** The offer to balance (METHODS.md §0 and §7): the web and the method in, the balanced web out. */
 
@@ -11,14 +13,12 @@ const body = z.strictObject({
   method: z.enum(BALANCING_METHODS, { error: `method must be one of ${BALANCING_METHODS.join(', ')}` }).default('least-change'),
 });
 
-export function balancingRoutes(): Router {
+export function balancingRoutes(engine: EngineJobs): Router {
   const router = Router();
-  router.post('/', (request, response) => {
-    const parsed = body.safeParse(request.body);
-    if (!parsed.success) throw new RequestError(400, 'The request body does not have the expected shape', describeIssues(parsed.error));
-    const network = createNetwork(parseWeb(parsed.data.web));
-    const balanced = balanceNetwork(network, { method: parsed.data.method });
-    response.json({ method: parsed.data.method, wasBalanced: isBalanced(network), web: toWeb(balanced) });
+  router.post('/', async (request, response) => {
+    const { web, method } = parsedBody(request, body);
+    requireWebWithinLimits(web, 'web.');
+    sendJsonText(response, await engine.balanceOffThread(web, method, { signal: clientSignal(request, response) }));
   });
   return router;
 }

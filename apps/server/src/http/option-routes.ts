@@ -1,18 +1,17 @@
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import { z } from 'zod';
-import { describeIssues, responseRuleSchema } from '@seinework/contracts';
-import { harvestSensitivity, optionUncertainty, parseHarvestOption, runOption, type DrawRunner } from '@seinework/harvest-options';
-import { createNetwork, parseWeb } from '@seinework/network-analysis';
-import { HTTP_CYCLE_LIMITS } from './cycle-limits';
-import { RequestError } from './errors';
+import { responseRuleSchema } from '@seinework/contracts';
+import { EngineOverBudget } from '../engine/engine-errors';
+import type { EngineJobs } from '../engine/engine-jobs';
+import { clientSignal, sendJsonText } from './client-signal';
+import { parsedBody } from './request-body';
+import { requireOptionWithinLimits, requireWebWithinLimits } from './size-limits';
+import { tableSelection } from './table-selection';
 
 /**
  * Stateless harvest-option runs (METHODS.md §8): the web and the option travel in the body, the
- * engine validates them and does the math. Saved options and baselines come with the database.
+ * engine checks them and does the math on its workers. Saved options and baselines come with the database.
  */
-
-/** A request holds a connection open while it draws: larger studies belong to a background job. */
-export const MAX_DRAWS_PER_REQUEST = 5_000;
 
 /** Asked for with `Accept: application/x-ndjson`: progress lines while the draws run. */
 const NDJSON = 'application/x-ndjson';
@@ -20,60 +19,68 @@ const NDJSON = 'application/x-ndjson';
 const runBody = z.strictObject({ web: z.unknown(), option: z.unknown() });
 const sensitivityBody = z.strictObject({ web: z.unknown(), response: responseRuleSchema.default('bottom-up') });
 
-export interface OptionRouteSettings {
-  /** Worker threads for uncertainty draws; without a pool draws run in the server's own thread. */
-  readonly drawPool?: DrawRunner;
-}
-
-export function optionRoutes(settings: OptionRouteSettings = {}): Router {
+export function optionRoutes(engine: EngineJobs): Router {
   const router = Router();
 
   router.post('/run', async (request, response) => {
-    const body = parse(runBody, request.body);
-    const web = parseWeb(body.web);
-    const option = parseHarvestOption(body.option);
-    if (option.uncertainty && option.uncertainty.draws > MAX_DRAWS_PER_REQUEST) {
-      throw new RequestError(422, 'Too many uncertainty draws', [
-        `option: uncertainty.draws: at most ${MAX_DRAWS_PER_REQUEST} draws per request (asked for ${option.uncertainty.draws})`,
-      ]);
-    }
-    const run = runOption(web, option, { cycles: HTTP_CYCLE_LIMITS });
-    if (!option.uncertainty) {
-      response.json(run);
-      return;
-    }
-    const where = { pool: settings.drawPool };
+    const body = parsedBody(request, runBody);
+    requireWebWithinLimits(body.web, 'web.');
+    requireOptionWithinLimits(body.option);
+    const tables = tableSelection(request);
+    const signal = clientSignal(request, response);
     if (!request.get('accept')?.includes(NDJSON)) {
-      response.json({ ...run, uncertainty: await optionUncertainty(web, option, option.uncertainty, where) });
+      sendJsonText(response, await engine.runOptionOffThread(body.web, body.option, { tables, signal }));
       return;
     }
     // Progress for a long run: one JSON line per finished chunk of draws, then the result. The
-    // input was checked above, so once the stream has begun only a server fault can end it early.
-    response.status(200).type(NDJSON);
-    const line = (value: unknown) => response.write(`${JSON.stringify(value)}\n`);
+    // stream begins with the first line, once the engine has accepted the input: a refusal before
+    // it is an ordinary 4xx; after it, an error line ends the stream.
+    const stream = new LineStream(response);
     try {
-      const uncertainty = await optionUncertainty(web, option, option.uncertainty, {
-        ...where,
-        onProgress: (done, total) => line({ progress: { done, total } }),
+      const result = await engine.runOptionOffThread(body.web, body.option, {
+        tables,
+        signal,
+        onProgress: (done, total) => stream.line(JSON.stringify({ progress: { done, total } })),
       });
-      line({ result: { ...run, uncertainty } });
+      stream.parts('{"result":', result, '}\n');
+      response.end();
     } catch (error) {
-      console.error(error);
-      line({ error: 'Something went wrong on the server while drawing' });
+      if (!stream.started) throw error;
+      // a client that went away is not told; anything else ends the stream with a line saying what happened
+      if (!signal.aborted) {
+        if (!(error instanceof EngineOverBudget)) console.error(error);
+        stream.line(JSON.stringify({ error: error instanceof EngineOverBudget ? error.message : 'Something went wrong on the server while drawing' }));
+      }
+      response.end();
     }
-    response.end();
   });
 
-  router.post('/sensitivity', (request, response) => {
-    const body = parse(sensitivityBody, request.body);
-    response.json(harvestSensitivity(createNetwork(parseWeb(body.web)), body.response));
+  router.post('/sensitivity', async (request, response) => {
+    const body = parsedBody(request, sensitivityBody);
+    requireWebWithinLimits(body.web, 'web.');
+    sendJsonText(response, await engine.sensitivityOffThread(body.web, body.response, { signal: clientSignal(request, response) }));
   });
 
   return router;
 }
 
-function parse<T>(schema: z.ZodType<T>, body: unknown): T {
-  const parsed = schema.safeParse(body);
-  if (!parsed.success) throw new RequestError(400, 'The request body does not have the expected shape', describeIssues(parsed.error));
-  return parsed.data;
+/** An NDJSON answer whose status and headers go out with its first line. */
+class LineStream {
+  started = false;
+
+  constructor(private readonly response: Response) {}
+
+  line(text: string): void {
+    this.parts(text, '\n');
+  }
+
+  /** One line written in parts, so that a large result is written as it came, never copied into one string. */
+  parts(...parts: (string | Buffer)[]): void {
+    if (this.response.destroyed) return;
+    if (!this.started) {
+      this.started = true;
+      this.response.status(200).type(NDJSON);
+    }
+    for (const part of parts) this.response.write(part);
+  }
 }

@@ -1,0 +1,54 @@
+import express, { type Request, type RequestHandler } from 'express';
+import { findDuplicateKey } from '@seinework/contracts';
+import { RequestError } from './errors';
+
+/**
+ * Reads JSON request bodies, every failure a 4xx naming it: a body that is not JSON, or repeats a
+ * key (JSON.parse would silently keep the last), is a 400; too large a 413; a compressed body that
+ * does not decompress a 400; a content type or encoding we do not read a 415. Multipart bodies
+ * pass through untouched for the upload routes to read.
+ */
+
+export const BODY_LIMIT_BYTES = 5 * 1024 * 1024;
+
+const JSON_TYPES = ['application/json', '+json'];
+
+export function jsonBody(limitBytes = BODY_LIMIT_BYTES): RequestHandler {
+  const readText = express.text({ type: () => true, limit: limitBytes, defaultCharset: 'utf-8' });
+  return (request, response, next) => {
+    if (!hasBody(request) || request.is('multipart/form-data')) return next();
+    if (!request.is(JSON_TYPES)) {
+      return next(new RequestError(415, `Send the request body as JSON (Content-Type: application/json), not ${request.get('content-type') ?? 'without a type'}`));
+    }
+    readText(request, response, (error?: unknown) => {
+      if (error) return next(readFailure(error, limitBytes, request));
+      const text = typeof request.body === 'string' ? request.body : '';
+      request.body = undefined;
+      if (text.trim() === '') return next();
+      try {
+        request.body = JSON.parse(text);
+      } catch (parseError) {
+        return next(new RequestError(400, 'The request body is not valid JSON', [(parseError as Error).message]));
+      }
+      const duplicate = findDuplicateKey(text);
+      if (duplicate) return next(new RequestError(400, 'The request body gives a key twice', [duplicate]));
+      next();
+    });
+  };
+}
+
+function hasBody(request: Request): boolean {
+  const length = request.get('content-length');
+  return request.get('transfer-encoding') !== undefined || (length !== undefined && length !== '0');
+}
+
+function readFailure(error: unknown, limitBytes: number, request: Request): RequestError {
+  const type = (error as { type?: unknown }).type;
+  const encoding = request.get('content-encoding') ?? 'identity';
+  if (type === 'entity.too.large') return new RequestError(413, `The request body is larger than ${limitBytes / (1024 * 1024)} MB, the most one request may send`);
+  if (type === 'encoding.unsupported') return new RequestError(415, `Content-Encoding "${encoding}" is not read here: send the body uncompressed, or as gzip, deflate or br`);
+  if (type === 'charset.unsupported') return new RequestError(415, 'Send the request body in UTF-8');
+  // the decompression stream failed: the body is not what its Content-Encoding says
+  if (encoding !== 'identity' && type === undefined) return new RequestError(400, `The request body is not valid ${encoding} data (Content-Encoding: ${encoding})`);
+  return new RequestError(400, 'The request body could not be read');
+}
