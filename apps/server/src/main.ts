@@ -5,6 +5,7 @@ import { readConfig } from './config';
 import { openDatabase } from './db/database';
 import { DataDirInUseError } from './db/data-dir-lock';
 import { seedDemo } from './seed/seed-demo';
+import { startMail } from './mail/start-mail';
 import { DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users';
 
 const config = readConfig();
@@ -23,6 +24,9 @@ if (config.demoMode && (await seedDemo(database, config.nodeEnv)).seeded) {
   console.log(`Demo accounts created (password ${DEMO_PASSWORD}): ${DEMO_USERS.map((u) => u.email).join(', ')}`);
 }
 
+const mail = await startMail({ smtpUrl: config.smtpUrl, demoMode: config.demoMode, db: database.db, from: process.env['MAIL_FROM'] });
+console.log(mail.where);
+
 const drawPool = createDrawPool();
 const app = await createApp({
   demoWebPath: resolve(root, 'seeds/brannock-bay.json'),
@@ -31,6 +35,7 @@ const app = await createApp({
   database,
   publicOrigin: config.publicOrigin,
   demoMode: config.demoMode,
+  mailer: mail.mailer,
 });
 const server = app.listen(port, host, () => {
   console.log(`Seinework is running at http://${host}:${port}/`);
@@ -39,7 +44,7 @@ const server = app.listen(port, host, () => {
 // Stop cleanly: close the connections, then the draw workers and the database (which frees the data folder).
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
-    server.close(() => void Promise.all([drawPool.destroy(), database.close()]));
+    server.close(() => void Promise.all([drawPool.destroy(), mail.close().then(() => database.close())]));
     server.closeAllConnections();
   });
 }
