@@ -11,6 +11,8 @@ const EMPTY: EditorTables = { compartments: [], flows: [], imports: [], exports:
 
 interface EditorState {
   webId: string | null;
+  /** The web's own name (a clone's differs from the name inside its WEB.json). */
+  webName: string;
   /** The version the edit started from. */
   source: VersionDetail | null;
   tables: EditorTables;
@@ -34,6 +36,7 @@ interface EditorState {
 
 const initial: EditorState = {
   webId: null,
+  webName: '',
   source: null,
   tables: EMPTY,
   name: '',
@@ -66,8 +69,8 @@ export const EditorStore = signalStore(
       cellProblems: computed(() => read().problems),
       balances,
       unbalanced: computed(() => balances().filter((b) => b.overTolerance)),
-      /** The draft "Publish" would publish: the one saved here, or the draft opened, while unchanged. */
-      publishable: computed(() => (saved()?.versionId ?? (source()?.status === 'draft' && !dirty() ? source()!.id : null))),
+      /** The draft "Publish" would publish, while nothing is unsaved: the one saved here, or the draft opened. */
+      publishable: computed(() => (dirty() ? null : (saved()?.versionId ?? (source()?.status === 'draft' ? source()!.id : null)))),
       compartmentIds: computed(() => tables().compartments.map((r) => r.cells['id'].trim()).filter((id) => id !== '')),
     };
   }),
@@ -77,8 +80,8 @@ export const EditorStore = signalStore(
       async load(webId: string, versionId: string): Promise<void> {
         patchState(store, { ...initial, webId, loading: true });
         try {
-          const source = await firstValueFrom(api.version(webId, versionId));
-          patchState(store, { source, tables: webToTables(source.web), name: source.web.name, unit: source.web.unit, loading: false });
+          const [detail, source] = await Promise.all([firstValueFrom(api.web(webId)), firstValueFrom(api.version(webId, versionId))]);
+          patchState(store, { webName: detail.name, source, tables: webToTables(source.web), name: source.web.name, unit: source.web.unit, loading: false });
         } catch (error) {
           patchState(store, { loading: false, error: `This version could not be opened: ${errorMessage(error)}` });
         }
@@ -91,9 +94,6 @@ export const EditorStore = signalStore(
       },
       removeRow(table: EditorTable, key: number): void {
         edit({ ...store.tables(), [table]: store.tables()[table].filter((row) => row.key !== key) });
-      },
-      setName(name: string): void {
-        patchState(store, { name, dirty: true });
       },
       setNote(note: string): void {
         patchState(store, { note });

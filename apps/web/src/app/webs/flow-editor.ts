@@ -124,7 +124,7 @@ export class FlowEditor implements HasUnsavedChanges {
     if (!source) return;
     this.dialog
       .open<CloneDialog, unknown, CloneDetails>(CloneDialog, {
-        data: { webName: source.web.name, versionNumber: source.number, place: '', period: '' },
+        data: { webName: this.store.webName(), versionNumber: source.number, place: '', period: '' },
         width: 'min(520px, 95vw)',
       })
       .afterClosed()

@@ -2,7 +2,7 @@ import { inject } from '@angular/core';
 import { patchState, signalStore, withMethods, withState } from '@ngrx/signals';
 import { firstValueFrom } from 'rxjs';
 import type { WebListQuery, WebSummary } from '@seinework/contracts';
-import { WebsApi } from './webs-api';
+import { WebsApi, type Created } from './webs-api';
 import { errorMessage } from './request-error';
 
 type SortKey = WebListQuery['sort'];
@@ -17,6 +17,8 @@ interface WebListState {
   filter: string;
   loading: boolean;
   error: string | null;
+  creating: boolean;
+  createError: string | null;
 }
 
 const initial: WebListState = {
@@ -29,6 +31,8 @@ const initial: WebListState = {
   filter: '',
   loading: false,
   error: null,
+  creating: false,
+  createError: null,
 };
 
 /** The list of webs: sorting, filtering and paging happen on the server, so only one page is held. */
@@ -62,6 +66,20 @@ export const WebListStore = signalStore(
       showPage(page: number, pageSize: number): Promise<void> {
         patchState(store, { page, pageSize });
         return load();
+      },
+      /** A new web from the text of a WEB.json file; the server checks it as it would any upload. */
+      async createFromJson(fileName: string, text: string): Promise<Created | null> {
+        patchState(store, { creating: true, createError: null });
+        try {
+          const web = JSON.parse(text);
+          const created = await firstValueFrom(api.create(web));
+          patchState(store, { creating: false });
+          return created;
+        } catch (error) {
+          const why = error instanceof SyntaxError ? `it is not valid JSON (${error.message})` : errorMessage(error);
+          patchState(store, { creating: false, createError: `No web was made from ${fileName}: ${why}` });
+          return null;
+        }
       },
     };
   }),

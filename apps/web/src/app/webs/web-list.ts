@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, OnInit, inject } from '@angular/core';
 import { DatePipe } from '@angular/common';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -41,6 +41,7 @@ export class WebList implements OnInit {
   protected readonly store = inject(WebListStore);
   protected readonly session = inject(SessionStore);
   protected readonly columns = ['name', 'place', 'period', 'latest', 'published', 'updatedAt'];
+  private readonly router = inject(Router);
   private filterTimer: ReturnType<typeof setTimeout> | undefined;
 
   ngOnInit(): void {
@@ -56,6 +57,14 @@ export class WebList implements OnInit {
   protected filterWebs(text: string): void {
     clearTimeout(this.filterTimer);
     this.filterTimer = setTimeout(() => this.store.filterBy(text), FILTER_PAUSE_MS);
+  }
+
+  protected async createFromJson(input: HTMLInputElement): Promise<void> {
+    const file = input.files?.[0];
+    input.value = '';
+    if (!file) return;
+    const created = await this.store.createFromJson(file.name, await file.text());
+    if (created) this.router.navigate(['/webs', created.id], { queryParams: { version: created.versionId } });
   }
 
   protected showPage(event: PageEvent): void {
