@@ -3,6 +3,7 @@ import type { Web } from '@seinework/contracts';
 import { createNetwork, isBalanced, WebError } from '@seinework/network-analysis';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import { Matrix, solve } from 'ml-matrix';
+import { catchWebError } from '../../network-analysis/src/testing/catch-web-error';
 import { generateWeb } from '../../network-analysis/src/testing/generated-web';
 import { bottomUpResponse, catchFractions } from './bottom-up';
 import { planOption } from './option-web';
@@ -70,6 +71,51 @@ describe('bottomUpResponse (donor control; Hannon 1973, Fath & Patten 1999)', ()
     expect(most).toBeLessThan(370);
     expect(() => bottomUpResponse(planOption(baseline, [{ ...adjustments[0], amount: most * (1 - 1e-12) }]))).not.toThrow();
     expect(() => bottomUpResponse(planOption(baseline, [{ ...adjustments[0], amount: most * (1 + 1e-6) }]))).toThrow(/cannot supply/);
+  });
+
+  it('an impossible catch increase is refused naming its adjustment first, not the compartments downstream it starves', () => {
+    // carnivore listed first: its throughflow goes negative too, but it has no catch to blame
+    const web: Web = {
+      name: 'chain',
+      unit: 'u',
+      compartments: [
+        { id: 'carnivore', name: 'Carnivore', kind: 'consumer' },
+        { id: 'herbivore', name: 'Herbivore', kind: 'consumer' },
+        { id: 'plant', name: 'Plant', kind: 'producer' },
+      ],
+      flows: [
+        { from: 'plant', to: 'herbivore', value: 50 },
+        { from: 'herbivore', to: 'carnivore', value: 10 },
+      ],
+      imports: [{ to: 'plant', value: 100 }],
+      exports: [{ from: 'herbivore', value: 5, fleet: 'net' }],
+      respiration: [
+        { from: 'plant', value: 50 },
+        { from: 'herbivore', value: 35 },
+        { from: 'carnivore', value: 10 },
+      ],
+    };
+    const error = catchWebError(() => bottomUpResponse(planOption(createNetwork(web), [{ type: 'scale-catch', fleet: 'net', compartment: 'herbivore', percent: 1000 }])));
+    expect(error.kind).toBe('infeasible');
+    expect(error.problems).toHaveLength(1);
+    expect(error.problems[0]).toMatch(/^adjustments\[0\] \(scale-catch fleet "net" on "herbivore" by 1000 %\): "herbivore" cannot supply a catch of 55 /);
+  });
+
+  it('a closed catch that leaves a compartment nothing to do with its production names the closing adjustment', () => {
+    const web: Web = {
+      name: 'landed whole',
+      unit: 'u',
+      compartments: [
+        { id: 'plant', name: 'Plant', kind: 'producer' },
+        { id: 'fish', name: 'Fish', kind: 'consumer' },
+      ],
+      flows: [{ from: 'plant', to: 'fish', value: 10 }],
+      imports: [{ to: 'plant', value: 30 }],
+      exports: [{ from: 'fish', value: 10, fleet: 'net' }],
+      respiration: [{ from: 'plant', value: 20 }],
+    };
+    const error = catchWebError(() => bottomUpResponse(planOption(createNetwork(web), [{ type: 'close-fleet', fleet: 'net' }])));
+    expect(error.problems).toEqual([expect.stringMatching(/^adjustments\[0\] \(close-fleet "net"\): "fish" has no output but its catch/)]);
   });
 
   it('a production cut to almost nothing still gives a balanced web (fuzz counterexample)', () => {

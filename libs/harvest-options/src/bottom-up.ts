@@ -1,6 +1,6 @@
 import { LuDecomposition, Matrix } from 'ml-matrix';
 import { OUTSIDE, WebError, withFluxValues, type Network } from '@seinework/network-analysis';
-import type { OptionPlan } from './option-web';
+import type { CatchTarget, OptionPlan } from './option-web';
 
 /**
  * Bottom-up (donor-controlled) response of METHODS.md §8 (Hannon 1973, J. theor. Biol. 41:535-546;
@@ -36,7 +36,7 @@ export function bottomUpResponse(plan: OptionPlan): Network {
   const x = throughflows(network, donor);
   const leftover = x.map((xi, i) => xi - donor.Y[i]);
   const short = leftover.flatMap((rest, i) => (rest < -SUPPLY_TOLERANCE * Math.max(x[i], donor.Y[i]) ? [i] : []));
-  if (short.length > 0) throw new WebError('infeasible', short.map((i) => shortfall(plan, donor, x, i)));
+  if (short.length > 0) throw new WebError('infeasible', shortfalls(plan, donor, x, short));
   const nonHarvest = nonHarvestOutput(network);
   const stranded = leftover.flatMap((rest, i) => (nonHarvest[i] === 0 && rest > SUPPLY_TOLERANCE * x[i] ? [i] : []));
   if (stranded.length > 0) {
@@ -106,17 +106,33 @@ function nonHarvestOutput(network: Network): number[] {
   return N;
 }
 
+/** The adjustments that set i's catches (those still landing first), else its catches kept at baseline. */
 function labelsOn(plan: OptionPlan, i: number): string {
-  const onI = plan.catches.filter((c) => c.compartment === i && c.amount > 0);
+  const onI = plan.catches.filter((c) => c.compartment === i);
   const adjusted = onI.filter((c) => c.label.startsWith('adjustments['));
-  return (adjusted.length > 0 ? adjusted : onI).map((c) => c.label).join(' and ');
+  const landing = (catches: readonly CatchTarget[]) => catches.filter((c) => c.amount > 0);
+  const named = [landing(adjusted), adjusted, landing(onI)].find((catches) => catches.length > 0) ?? [];
+  return named.length > 0 ? named.map((c) => c.label).join(' and ') : "the option's catches";
+}
+
+/**
+ * A catch beyond supply drives what the compartment passes on below zero, and with it the
+ * throughflow of everything downstream: only compartments with a catch are at fault, those whose
+ * catch an adjustment sets first.
+ */
+function shortfalls(plan: OptionPlan, donor: Donor, x: readonly number[], short: readonly number[]): string[] {
+  const caught = short.filter((i) => donor.Y[i] > 0);
+  const adjusted = (i: number) => plan.catches.some((c) => c.compartment === i && c.amount > 0 && c.label.startsWith('adjustments['));
+  const atFault = caught.length > 0 ? [...caught.filter(adjusted), ...caught.filter((i) => !adjusted(i))] : short;
+  return atFault.map((i) => shortfall(plan, donor, x, i));
 }
 
 /** The most i can land with every other target held: its throughflow when nothing but catch leaves it. */
 function shortfall(plan: OptionPlan, donor: Donor, x: readonly number[], i: number): string {
+  const id = plan.network.ids[i];
+  if (donor.Y[i] === 0) return `${labelsOn(plan, i)}: the catches upstream leave "${id}" a throughflow of ${x[i]} under the bottom-up response`;
   const Phi = donor.Phi.map((row, r) => (r === i ? row.map(() => 0) : row));
   const Y = donor.Y.map((y, r) => (r === i ? 0 : y));
   const most = throughflows(plan.network, { Phi, Y, z: donor.z })[i];
-  const id = plan.network.ids[i];
   return `${labelsOn(plan, i)}: "${id}" cannot supply a catch of ${donor.Y[i]} under the bottom-up response (its throughflow would be ${x[i]}; the most it can land with the other catches held is ${Math.max(0, most)})`;
 }
