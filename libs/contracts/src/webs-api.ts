@@ -72,6 +72,13 @@ export const webDetailsSchema = z.strictObject({
 });
 export type WebDetails = z.infer<typeof webDetailsSchema>;
 
+/** The text fields of `POST /api/webs/upload` beside the file; name and unit win over the file's own. */
+export const uploadFieldsSchema = webDetailsSchema.extend({
+  name: text('name', 200).optional(),
+  unit: text('unit', 100).optional(),
+});
+export type UploadFields = z.infer<typeof uploadFieldsSchema>;
+
 /**
  * `POST /api/webs/:id/versions`: save an edited web as a new draft version. Every save is a new
  * version (traceable history); `basedOn` names the version the edit started from.

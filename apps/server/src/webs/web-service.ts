@@ -1,0 +1,232 @@
+import { randomUUID } from 'node:crypto';
+import { and, asc, count, desc, eq, ilike, inArray, max, or, sql, type SQL } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
+import type { CurrentUser, Page, VersionDetail, VersionSummary, Web, WebDetail, WebListQuery, WebSummary } from '@seinework/contracts';
+import { createNetwork, imbalances, parseWeb } from '@seinework/network-analysis';
+import { recordAudit } from '../audit/audit-log';
+import type { Db } from '../db/database';
+import { users, webs, webVersions } from '../db/schema';
+import { RequestError } from '../http/errors';
+import { insertWebRows, readWeb } from './version-rows';
+import { readsDrafts, visibleVersion, visibleWeb } from './visibility';
+import { requireWithinLimits } from './web-limits';
+
+/**
+ * Stored webs and their versions: every query and transaction of the webs routes. Every save is a
+ * new version; a published version is never changed; every change is audited in its transaction.
+ */
+
+export interface Created {
+  readonly id: string;
+  readonly versionId: string;
+}
+
+export interface NewWeb {
+  readonly web: Web;
+  readonly name?: string;
+  readonly place: string;
+  readonly period: string;
+  readonly note: string;
+}
+
+/** Checks a web as the engine does (shape, then structure) and against the size limits; 422 / 413 otherwise. */
+export function checkedWeb(input: unknown): Web {
+  const web = parseWeb(input);
+  requireWithinLimits(web);
+  createNetwork(web);
+  return web;
+}
+
+const creator = alias(users, 'creator');
+const publisher = alias(users, 'publisher');
+
+export class WebService {
+  constructor(private readonly db: Db) {}
+
+  async list(user: CurrentUser, query: WebListQuery): Promise<Page<WebSummary>> {
+    const conditions: (SQL | undefined)[] = [visibleWeb(user)];
+    if (query.filter) {
+      const pattern = `%${query.filter.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      conditions.push(or(ilike(webs.name, pattern), ilike(webs.place, pattern)));
+    }
+    if (query.status) {
+      const latestStatus = sql`(select ${webVersions.status} from ${webVersions} where ${and(eq(webVersions.webId, webs.id), visibleVersion(user))} order by ${webVersions.number} desc limit 1)`;
+      conditions.push(sql`${latestStatus} = ${query.status}`);
+    }
+    const where = and(...conditions);
+    const order = query.direction === 'asc' ? asc : desc;
+    const [rows, [{ total }]] = await Promise.all([
+      this.db
+        .select()
+        .from(webs)
+        .where(where)
+        // People expect "alpha" before "Bravo": text sorts ignore case.
+        .orderBy(order(query.sort === 'updatedAt' ? webs.updatedAt : sql`lower(${webs[query.sort]})`), asc(webs.id))
+        .limit(query.pageSize)
+        .offset((query.page - 1) * query.pageSize),
+      this.db.select({ total: count() }).from(webs).where(where),
+    ]);
+    const versions = rows.length === 0 ? [] : await this.versionRows(and(inArray(webVersions.webId, rows.map((w) => w.id)), visibleVersion(user)));
+    const items = rows.map((web): WebSummary => {
+      const own = versions.filter((v) => v.webId === web.id);
+      const latest = own.reduce((a, b) => (b.number > a.number ? b : a));
+      const published = own.filter((v) => v.status === 'published').reduce<(typeof own)[number] | undefined>((a, b) => (a === undefined || b.number > a.number ? b : a), undefined);
+      return {
+        id: web.id,
+        name: web.name,
+        place: web.place,
+        period: web.period,
+        unit: web.unit,
+        latestVersion: { id: latest.id, number: latest.number, status: latest.status, createdAt: latest.createdAt },
+        published: published ? { id: published.id, number: published.number, publishedBy: published.publishedBy!, publishedAt: published.publishedAt! } : null,
+        updatedAt: web.updatedAt.toISOString(),
+      };
+    });
+    return { items, total };
+  }
+
+  async create(user: CurrentUser, input: NewWeb): Promise<Created> {
+    return this.db.transaction(async (tx) => {
+      const id = randomUUID();
+      const name = input.name ?? input.web.name;
+      await tx.insert(webs).values({ id, name, place: input.place, period: input.period, unit: input.web.unit, createdBy: user.id });
+      const versionId = await this.insertVersion(tx, user, { webId: id, number: 1, web: input.web, note: input.note, basedOn: null });
+      await recordAudit(tx, { actorId: user.id, action: 'web.created', subject: `web:${id}/version:${versionId}`, detail: `Web "${name}" created with draft version 1` });
+      return { id, versionId };
+    });
+  }
+
+  async detail(user: CurrentUser, webId: string): Promise<WebDetail> {
+    const web = await this.visibleWebRow(user, webId);
+    const versions = await this.versionRows(and(eq(webVersions.webId, webId), visibleVersion(user)));
+    const [by] = await this.db.select({ name: users.name }).from(users).where(eq(users.id, web.createdBy));
+    return {
+      id: web.id,
+      name: web.name,
+      place: web.place,
+      period: web.period,
+      unit: web.unit,
+      createdBy: by?.name ?? '',
+      createdAt: web.createdAt.toISOString(),
+      versions: versions.sort((a, b) => b.number - a.number).map(({ webId: _, ...summary }) => summary),
+    };
+  }
+
+  async version(user: CurrentUser, webId: string, versionId: string): Promise<VersionDetail> {
+    const summary = await this.visibleVersion(user, webId, versionId);
+    return { ...summary, webId, web: await readWeb(this.db, versionId) };
+  }
+
+  /** The web's place and period with a version's web, for the exports. */
+  async versionForExport(user: CurrentUser, webId: string, versionId: string): Promise<{ web: Web; place: string; period: string; number: number }> {
+    const summary = await this.visibleVersion(user, webId, versionId);
+    const row = await this.visibleWebRow(user, webId);
+    return { web: await readWeb(this.db, versionId), place: row.place, period: row.period, number: summary.number };
+  }
+
+  async newVersion(user: CurrentUser, webId: string, input: { web: Web; note: string; basedOn: string | null }): Promise<Created> {
+    await this.visibleWebRow(user, webId);
+    if (input.basedOn !== null) {
+      const [base] = await this.db.select({ id: webVersions.id }).from(webVersions).where(and(eq(webVersions.id, input.basedOn), eq(webVersions.webId, webId)));
+      if (!base) throw new RequestError(422, 'basedOn must name a version of this web', [`basedOn: no version "${input.basedOn}" in this web`]);
+    }
+    return this.db.transaction(async (tx) => {
+      // The web's row is the lock that gives concurrent saves distinct, consecutive numbers.
+      await tx.select({ id: webs.id }).from(webs).where(eq(webs.id, webId)).for('update');
+      const [{ last }] = await tx.select({ last: max(webVersions.number) }).from(webVersions).where(eq(webVersions.webId, webId));
+      const number = (last ?? 0) + 1;
+      const versionId = await this.insertVersion(tx, user, { webId, number, web: input.web, note: input.note, basedOn: input.basedOn });
+      await tx.update(webs).set({ updatedAt: new Date() }).where(eq(webs.id, webId));
+      await recordAudit(tx, { actorId: user.id, action: 'web.version-created', subject: `web:${webId}/version:${versionId}`, detail: `Draft version ${number} saved${input.basedOn ? ` from version ${input.basedOn}` : ''}` });
+      return { id: webId, versionId };
+    });
+  }
+
+  async publish(user: CurrentUser, webId: string, versionId: string): Promise<VersionSummary> {
+    await this.visibleVersion(user, webId, versionId);
+    const web = await readWeb(this.db, versionId);
+    const unbalanced = imbalances(createNetwork(web));
+    if (unbalanced.length > 0) {
+      throw new RequestError(
+        422,
+        `The version is not balanced (${unbalanced.map((u) => u.id).join(', ')}): balance it and save it as a new draft before publishing`,
+        unbalanced.map((u) => `compartment "${u.id}" is unbalanced: inputs ${u.inputs} and outputs ${u.outputs} differ by ${u.imbalance}`),
+      );
+    }
+    await this.db.transaction(async (tx) => {
+      const [row] = await tx.select().from(webVersions).where(eq(webVersions.id, versionId)).for('update');
+      if (row.status === 'published') throw new RequestError(409, `Version ${row.number} is already published: published versions cannot change`);
+      const now = new Date();
+      await tx.update(webVersions).set({ status: 'published', publishedBy: user.id, publishedAt: now }).where(eq(webVersions.id, versionId));
+      await tx.update(webs).set({ updatedAt: now }).where(eq(webs.id, webId));
+      await recordAudit(tx, { actorId: user.id, action: 'web.published', subject: `web:${webId}/version:${versionId}`, detail: `Version ${row.number} published` });
+    });
+    return this.visibleVersion(user, webId, versionId);
+  }
+
+  async clone(user: CurrentUser, webId: string, versionId: string, input: { name: string; place?: string; period?: string }): Promise<Created> {
+    const source = await this.versionForExport(user, webId, versionId);
+    return this.db.transaction(async (tx) => {
+      const id = randomUUID();
+      const place = input.place ?? source.place;
+      const period = input.period ?? source.period;
+      await tx.insert(webs).values({ id, name: input.name, place, period, unit: source.web.unit, createdBy: user.id });
+      const newVersionId = await this.insertVersion(tx, user, { webId: id, number: 1, web: { ...source.web, name: input.name }, note: `Cloned from version ${source.number}`, basedOn: versionId });
+      await recordAudit(tx, { actorId: user.id, action: 'web.cloned', subject: `web:${id}/version:${newVersionId}`, detail: `Web "${input.name}" cloned from web ${webId} version ${source.number}` });
+      return { id, versionId: newVersionId };
+    });
+  }
+
+  private async insertVersion(tx: Db, user: CurrentUser, v: { webId: string; number: number; web: Web; note: string; basedOn: string | null }): Promise<string> {
+    const id = randomUUID();
+    await tx.insert(webVersions).values({
+      id,
+      webId: v.webId,
+      number: v.number,
+      note: v.note,
+      basedOn: v.basedOn,
+      createdBy: user.id,
+      webName: v.web.name,
+      unit: v.web.unit,
+      areaKm2: v.web.areaKm2 ?? null,
+      tonnesPerUnit: v.web.tonnesPerUnit ?? null,
+    });
+    await insertWebRows(tx, id, v.web);
+    return id;
+  }
+
+  private async visibleWebRow(user: CurrentUser, webId: string): Promise<typeof webs.$inferSelect> {
+    const [web] = await this.db.select().from(webs).where(and(eq(webs.id, webId), visibleWeb(user)));
+    if (!web) throw new RequestError(404, 'No such web');
+    return web;
+  }
+
+  /** A version of this web the person may see, or 404 (a draft hidden from them included). */
+  async visibleVersion(user: CurrentUser, webId: string, versionId: string): Promise<VersionSummary> {
+    const [version] = await this.versionRows(and(eq(webVersions.id, versionId), eq(webVersions.webId, webId), visibleVersion(user)));
+    if (!version) throw new RequestError(404, readsDrafts(user) ? 'No such version of this web' : 'No such published version of this web');
+    const { webId: _, ...summary } = version;
+    return summary;
+  }
+
+  private async versionRows(where: SQL | undefined): Promise<(VersionSummary & { webId: string })[]> {
+    const rows = await this.db
+      .select({
+        id: webVersions.id,
+        webId: webVersions.webId,
+        number: webVersions.number,
+        status: webVersions.status,
+        note: webVersions.note,
+        createdBy: creator.name,
+        createdAt: webVersions.createdAt,
+        publishedBy: publisher.name,
+        publishedAt: webVersions.publishedAt,
+        basedOn: webVersions.basedOn,
+      })
+      .from(webVersions)
+      .innerJoin(creator, eq(creator.id, webVersions.createdBy))
+      .leftJoin(publisher, eq(publisher.id, webVersions.publishedBy))
+      .where(where);
+    return rows.map((row) => ({ ...row, createdAt: row.createdAt.toISOString(), publishedAt: row.publishedAt?.toISOString() ?? null }));
+  }
+}
