@@ -9,5 +9,7 @@ export default defineConfig({
     // need the built app and Chromium: vitest.browser.config.ts
     exclude: ['tests/browser/**', '**/node_modules/**'],
     testTimeout: 30_000,
+    // a test database is migrated once per process (several seconds on a busy machine) in a beforeAll/beforeEach
+    hookTimeout: 60_000,
   },
 });

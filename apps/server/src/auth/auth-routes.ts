@@ -10,7 +10,7 @@ import { parseInput } from '../validate';
 import { currentSessionId, currentUser, requireSignIn } from './guards';
 import { hashPassword, verifyPassword } from './passwords';
 import type { Sessions } from './session';
-import { accountLocked, addressLimiter, clearFailures, countFailure, tooMany, type SignInLimits } from './sign-in-limits';
+import { addressLimiter, clearFailures, countAttempt, tooMany, type SignInLimits } from './sign-in-limits';
 
 export interface AuthRouteOptions {
   readonly db: Db;
@@ -39,8 +39,7 @@ export function authRoutes(options: AuthRouteOptions): Router {
       await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject: `email:${body.email}`, detail: 'No account with this address' });
       throw new RequestError(401, WRONG);
     }
-    const now = options.now();
-    if (accountLocked(user, limits, now)) {
+    if ((await countAttempt(db, user.id, limits, options.now())) > limits.perAccount) {
       await recordAudit(db, { actorId: null, action: 'auth.sign-in-refused', subject: `user:${user.id}`, detail: 'Too many failed sign-ins for this account' });
       throw tooMany(limits);
     }
@@ -52,10 +51,7 @@ export function authRoutes(options: AuthRouteOptions): Router {
           ? 'Demo accounts are refused in production'
           : undefined;
     if (refusal) {
-      await db.transaction(async (tx) => {
-        await countFailure(tx, user.id, limits, now);
-        await recordAudit(tx, { actorId: null, action: 'auth.sign-in-failed', subject: `user:${user.id}`, detail: refusal });
-      });
+      await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject: `user:${user.id}`, detail: refusal });
       throw new RequestError(401, WRONG);
     }
     const { cookie } = await sessions.create(user.id);

@@ -8,7 +8,7 @@ import { RequestError } from '../http/errors';
  * Two limits on guessing passwords. Per address (express-rate-limit, in memory: one server per
  * data folder): failed sign-ins from one client address in a window. Per account (in the users
  * table, so it holds across restarts and across servers sharing one PostgreSQL): failed sign-ins
- * of one account in a window, whatever address they come from. Successful sign-ins count in neither.
+ * of one account in a window, whatever address they come from. A successful sign-in counts in neither.
  */
 export interface SignInLimits {
   readonly windowMinutes: number;
@@ -33,21 +33,23 @@ export function tooMany(limits: SignInLimits): RequestError {
   return new RequestError(429, `Too many failed sign-in attempts: wait ${limits.windowMinutes} minutes and try again, or reset your password`);
 }
 
-export function accountLocked(user: { failedSignIns: number; failedSignInsSince: Date | null }, limits: SignInLimits, now: Date): boolean {
-  return user.failedSignIns >= limits.perAccount && user.failedSignInsSince !== null && now.getTime() - user.failedSignInsSince.getTime() < limits.windowMinutes * 60_000;
-}
-
-/** Counts one failure in one statement (concurrent failures are all counted); a window that ended starts again at 1. */
-export async function countFailure(db: Db, userId: string, limits: SignInLimits, now: Date): Promise<void> {
+/**
+ * Counts one attempt on an account before its password is checked, in one statement, and answers
+ * how many attempts the window now holds: concurrent guesses cannot all slip in under the limit.
+ * A window that ended starts again at 1; a successful sign-in clears the count.
+ */
+export async function countAttempt(db: Db, userId: string, limits: SignInLimits, now: Date): Promise<number> {
   const windowStart = new Date(now.getTime() - limits.windowMinutes * 60_000);
   const expired = sql`(${users.failedSignInsSince} is null or ${users.failedSignInsSince} <= ${windowStart.toISOString()}::timestamptz)`;
-  await db
+  const [row] = await db
     .update(users)
     .set({
       failedSignIns: sql`case when ${expired} then 1 else ${users.failedSignIns} + 1 end`,
       failedSignInsSince: sql`case when ${expired} then ${now.toISOString()}::timestamptz else ${users.failedSignInsSince} end`,
     })
-    .where(eq(users.id, userId));
+    .where(eq(users.id, userId))
+    .returning({ attempts: users.failedSignIns });
+  return row?.attempts ?? 0;
 }
 
 export async function clearFailures(db: Db, userId: string): Promise<void> {

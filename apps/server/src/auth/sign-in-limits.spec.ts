@@ -1,0 +1,53 @@
+import { eq } from 'drizzle-orm';
+import { auditEvents } from '../db/schema';
+import { demoEmail, DEMO_PASSWORD } from '../seed/demo-users';
+import { createTestApp, type TestApp } from '../testing/test-app';
+
+let t: TestApp;
+afterEach(() => t.close());
+
+const signIn = (email: string, password: string) => t.anonymous().post('/api/auth/sign-in').send({ email, password });
+
+describe('sign-in rate limits', () => {
+  it('per address: 429 once too many sign-ins failed from one address, whatever the accounts', async () => {
+    t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 3, perAccount: 100 } });
+    for (const n of [1, 2, 3]) expect((await signIn(`nobody${n}@example.org`, 'wrong password')).status).toBe(401);
+    const limited = await signIn(demoEmail('admin'), DEMO_PASSWORD);
+    expect(limited.status).toBe(429);
+    expect(limited.body.error).toMatch(/too many/i);
+    expect(limited.headers['retry-after']).toBeDefined();
+  });
+
+  it('per address: successful sign-ins do not count', async () => {
+    t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 2, perAccount: 100 } });
+    for (let n = 0; n < 4; n++) expect((await signIn(demoEmail('staff'), DEMO_PASSWORD)).status).toBe(200);
+  });
+
+  it('per account: 429 once an account had too many failures, even with the right password, until the window ends', async () => {
+    let now = new Date('2026-03-01T09:00:00Z');
+    t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 100, perAccount: 3 }, now: () => now });
+    for (let n = 0; n < 3; n++) expect((await signIn(demoEmail('analyst'), 'wrong password')).status).toBe(401);
+    expect((await signIn(demoEmail('analyst'), DEMO_PASSWORD)).status).toBe(429);
+    // another account from the same address is not held back
+    expect((await signIn(demoEmail('council'), DEMO_PASSWORD)).status).toBe(200);
+    now = new Date('2026-03-01T09:16:00Z');
+    expect((await signIn(demoEmail('analyst'), DEMO_PASSWORD)).status).toBe(200);
+    const refused = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.sign-in-refused'));
+    expect(refused).toHaveLength(1);
+  });
+
+  it('per account: a success clears the count', async () => {
+    t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 100, perAccount: 3 } });
+    for (let round = 0; round < 3; round++) {
+      for (let n = 0; n < 2; n++) expect((await signIn(demoEmail('analyst'), 'wrong password')).status).toBe(401);
+      expect((await signIn(demoEmail('analyst'), DEMO_PASSWORD)).status).toBe(200);
+    }
+  });
+
+  it('per account: concurrent guesses cannot slip in under the limit together', async () => {
+    t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 100, perAccount: 5 } });
+    const answers = await Promise.all(Array.from({ length: 8 }, () => signIn(demoEmail('analyst'), 'wrong password')));
+    expect(answers.filter((a) => a.status === 401)).toHaveLength(5);
+    expect(answers.filter((a) => a.status === 429)).toHaveLength(3);
+  });
+});
