@@ -1,8 +1,9 @@
 /// <reference lib="dom" />
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from '@playwright/test';
+import type { Web } from '@seinework/contracts';
 import { analyzeWeb } from '@seinework/network-analysis';
-import demo from '../../seeds/brannock-bay.json';
 import { expect, shot, signIn, test } from './support/fixtures';
 
 /**
@@ -13,6 +14,7 @@ import { expect, shot, signIn, test } from './support/fixtures';
  */
 
 const fixtures = join(import.meta.dirname, 'fixtures');
+const demo = JSON.parse(readFileSync(join(import.meta.dirname, '../../seeds/brannock-bay.json'), 'utf8')) as Web;
 const CREEK = 'Heronsgate Creek (invented test web)';
 
 /** Errors the page itself raised; a refused request (422) is an answer the page shows, not a fault. */
