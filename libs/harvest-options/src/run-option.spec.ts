@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import type { HarvestOption, Web } from '@seinework/contracts';
 import { createNetwork, isBalanced, WebError } from '@seinework/network-analysis';
 import cone from '../../../tests/fixtures/cone-spring.json';
+import { scaledWeb } from '../../network-analysis/src/testing/scaled-web';
 import { runOption } from './run-option';
 import { webWithAdjustments } from './testing/option-arbitraries';
 
@@ -70,6 +71,13 @@ describe('runOption', () => {
         expect(again.baseline.ascendency).toBeCloseTo(run.option.ascendency, 6);
       }),
       { numRuns: 20 },
+    );
+  });
+
+  it('a web whose sums overflow (every value × 1e304) is refused as too large, not blamed on its loops', () => {
+    const huge = scaledWeb(cone as Web, 1e304);
+    expect(() => runOption(huge, option([{ type: 'open-fishery', fleet: 'net', compartment: 'detritivores', amount: 100 }]))).toThrow(
+      /^the numbers of "Cone Spring.*" are too large to analyse/,
     );
   });
 

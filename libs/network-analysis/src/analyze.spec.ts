@@ -7,6 +7,7 @@ import { anyStructureWeb, balancedWeb } from './testing/arbitraries';
 import { WebError } from './web-error';
 import { scaledWeb } from './testing/scaled-web';
 import { nonFinite } from './testing/non-finite';
+import { catchWebError } from './testing/catch-web-error';
 
 /**
  * The composed analysis (METHODS.md §11) must not depend on how compartments are named or listed,
@@ -97,6 +98,19 @@ describe('analyze', () => {
     const analysis = analyzeWeb(cone);
     expect(analysis.finnCycledToStraightRatio).toBeCloseTo(2815.7 / (30626 - 2815.7), 4);
     expect(analysis.finnCycledToStraightRatio).toBeCloseTo(analysis.finnCyclingIndex / (1 - analysis.finnCyclingIndex), 12);
+  });
+});
+
+describe('analyze at the edges of double precision', () => {
+  it('numbers whose sums overflow (every value × 1e304, × 3.1e303) are refused as too large, not blamed on the loops', () => {
+    for (const k of [1e304, 3.1e303, 1.5e303]) {
+      const error = catchWebError(() => analyzeWeb(scaledWeb(cone as Web, k), options));
+      expect(error.problems).toEqual([expect.stringMatching(/^the numbers of "Cone Spring.*" are too large to analyse: .*give the web in a larger unit$/)]);
+    }
+  });
+
+  it('numbers from 1e-300 to 1e300 give a document with no NaN or infinity', () => {
+    for (const k of [1e-300, 1e-160, 1e160, 1e300]) expect(nonFinite(analyzeWeb(scaledWeb(cone as Web, k), options))).toEqual([]);
   });
 });
 

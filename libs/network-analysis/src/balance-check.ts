@@ -39,6 +39,7 @@ export function isBalanced(network: Network, tolerance = BALANCE_TOLERANCE): boo
  * exit (export or respiration); otherwise I − G is singular. Throws WebError naming each one.
  */
 export function requireAnalysable(network: Network): void {
+  if (!fitsDoublePrecision(network)) throw tooLarge(network);
   if (network.throughflow.every((t) => t === 0)) {
     throw new WebError('invalid', [`"${network.name}" carries no flow: give it imports (primary production) and flows`]);
   }
@@ -66,4 +67,25 @@ export function compartmentsWithoutExit(network: Network): string[] {
   const { T, e, r, throughflow } = network;
   const drained = upstreamOf(T, e.map((ei, i) => ei + r[i] > 0));
   return network.ids.filter((_, i) => !drained[i] && throughflow[i] > 0);
+}
+
+/**
+ * Each number of the web may be finite while their sums are not. The largest sum an analysis forms
+ * from them is the development capacity C = T.. · H, with the flow diversity H at most log2 of the
+ * count of nonzero fluxes; when that overflows, what fails after is no fault of the web's structure.
+ */
+function fitsDoublePrecision(network: Network): boolean {
+  let total = 0;
+  let count = 0;
+  for (const f of network.fluxes) {
+    total += f.value;
+    if (f.value > 0) count++;
+  }
+  return Number.isFinite(total * Math.max(1, Math.log2(count)));
+}
+
+export function tooLarge(network: Network): WebError {
+  return new WebError('invalid', [
+    `the numbers of "${network.name}" are too large to analyse: their sums pass 1.8e308, the largest number the engine can hold; give the web in a larger unit`,
+  ]);
 }

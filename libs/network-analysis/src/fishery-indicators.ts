@@ -1,5 +1,5 @@
 import type { Network } from './network';
-import { requireAnalysable } from './balance-check';
+import { requireAnalysable, tooLarge } from './balance-check';
 import { idMap } from './id-map';
 import { identityMinus, solve } from './linear-algebra';
 import { WebError } from './web-error';
@@ -132,6 +132,7 @@ function solveOrExplain(network: Network, FT: number[][], w: number[]): number[]
     x = null;
   }
   if (x !== null && x.every((v) => v <= MAX_PASSES * production)) return x;
+  if (fitsAtUnitScale(FT, w, production)) throw tooLarge(network);
   const { e, ids, throughflow } = network;
   const vanishing = ids.flatMap((id, j) =>
     e[j] > 0 && e[j] < VANISHING_EXPORT * throughflow[j] ? [`"${id}" (exports ${e[j]} of a throughflow of ${throughflow[j]})`] : [],
@@ -141,6 +142,19 @@ function solveOrExplain(network: Network, FT: number[][], w: number[]): number[]
       ? `the exports of ${vanishing.join(', ')} are too small to resolve in double precision (close such a catch rather than cut it to almost nothing)`
       : `material passes round its loops more than ${MAX_PASSES.toExponential(0)} times before it is exported`;
   throw new WebError('infeasible', [`primary production required cannot be apportioned: almost nothing but respiration leaves the web; ${why}`]);
+}
+
+/**
+ * Whether the same system with the production scaled to 1 has a finite solution within MAX_PASSES:
+ * if so, what failed at full size was the size of the numbers, not the loops.
+ */
+function fitsAtUnitScale(FT: number[][], w: number[], production: number): boolean {
+  try {
+    return solve(identityMinus(FT), w.map((v) => v / production), 'primary production intensities').every((v) => Number.isFinite(v) && v <= MAX_PASSES);
+  } catch (error) {
+    if (error instanceof WebError) return false;
+    throw error;
+  }
 }
 
 /**

@@ -70,6 +70,15 @@ describe('robustnessGradient', () => {
     expectFiniteDifferenceMatch(networkFromJson(cone));
   });
 
+  it('scales as 1/k when every flux is multiplied by k, from 1e-300 to 1e300 (F is dimensionless)', () => {
+    const network = networkFromJson(cone);
+    const gradient = robustnessGradient(network);
+    for (const k of [1e-300, 1e-160, 1e160, 1e300]) {
+      const scaled = robustnessGradient(withFluxValues(network, network.fluxes.map((f) => f.value * k)));
+      scaled.forEach((row, i) => row.forEach((g, j) => expect(Math.abs(g * k - gradient[i][j])).toBeLessThanOrEqual(1e-9 * Math.abs(gradient[i][j]))));
+    }
+  });
+
   it('matches a central finite difference of F on generated webs', () => {
     fc.assert(
       fc.property(balancedWeb({ max: 10 }), (web) => expectFiniteDifferenceMatch(createNetwork(web))),

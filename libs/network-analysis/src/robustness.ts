@@ -59,7 +59,11 @@ export function robustnessGradient(network: Network): number[][] {
     for (let j = 0; j < n; j++) {
       const x = row[j];
       if (x <= 0) continue;
-      gradient[i][j] = factor * (Math.log2((x * tst) / (outflow[i] * throughflow[j])) + a * Math.log2(x / tst));
+      // sums of logarithms, as in the indices: x T.. overflows for flows beyond about 1e154 (and
+      // underflows below 1e-154) long before the gradient does
+      const logX = Math.log2(x);
+      const logTst = Math.log2(tst);
+      gradient[i][j] = factor * (logX + logTst - Math.log2(outflow[i]) - Math.log2(throughflow[j]) + a * (logX - logTst));
     }
   }
   return gradient;
