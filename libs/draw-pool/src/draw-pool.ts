@@ -12,8 +12,8 @@ export interface DrawPool extends DrawRunner {
   withSignal(signal: AbortSignal): DrawRunner;
   /** Chunks waiting for a worker now. */
   readonly queueSize: number;
-  /** Chunks finished so far, aborted ones included. */
-  readonly completed: number;
+  /** Chunks that ran to the end (not aborted, not refused). */
+  readonly finished: number;
   destroy(): Promise<void>;
 }
 
@@ -42,8 +42,8 @@ export function createDrawPool(workers?: number, settings: DrawPoolSettings = {}
     get queueSize() {
       return pool.queueSize;
     },
-    get completed() {
-      return pool.completed;
+    get finished() {
+      return pool.finished;
     },
     destroy: () => pool.destroy(),
   };

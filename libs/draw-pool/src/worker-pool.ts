@@ -28,8 +28,8 @@ export interface WorkerPool<Task, Result> {
   run(task: Task, signal?: AbortSignal): Promise<Result>;
   /** Tasks waiting for a worker now. */
   readonly queueSize: number;
-  /** Tasks finished so far, aborted ones included. */
-  readonly completed: number;
+  /** Tasks that ran to the end (not aborted, not refused). */
+  readonly finished: number;
   destroy(): Promise<void>;
 }
 
@@ -62,11 +62,16 @@ export function createWorkerPool<Task, Result>(workerFile: URL, settings: Worker
     idleTimeout: keepAlive ? Infinity : 1_000,
     maxQueue: settings.maxQueue,
   });
+  let finished = 0;
   return {
     threads,
     run: async (task, signal) => {
+      // checked here too: piscina queues tasks that carry a signal apart, past its own maxQueue
+      if (pool.queueSize >= settings.maxQueue) throw new QueueFullError();
       try {
-        return (await pool.run(task, signal ? { signal } : {})) as Result;
+        const result = (await pool.run(task, signal ? { signal } : {})) as Result;
+        finished++;
+        return result;
       } catch (error) {
         if (error instanceof Error && QUEUE_FULL_MESSAGES.has(error.message)) throw new QueueFullError();
         throw error;
@@ -75,8 +80,8 @@ export function createWorkerPool<Task, Result>(workerFile: URL, settings: Worker
     get queueSize() {
       return pool.queueSize;
     },
-    get completed() {
-      return pool.completed;
+    get finished() {
+      return finished;
     },
     destroy: () => pool.destroy(),
   };
