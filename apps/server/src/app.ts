@@ -64,7 +64,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
     // the session reader comes first: every stateful router below sees the signed-in person
     const { sessions } = mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
     mountMailRoutes(app, { db: settings.database.db, sessions, mailer: settings.mailer, publicOrigin });
-    app.use('/api/webs', webRoutes({ db: settings.database.db }));
+    app.use('/api/webs', webRoutes({ db: settings.database.db, engine }));
   }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.originalUrl.split('?')[0]}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {

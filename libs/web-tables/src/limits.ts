@@ -1,3 +1,5 @@
+import { API_LIMITS } from '@seinework/contracts';
+
 /**
  * How much one upload may carry. The byte limit is also the server's multer limit; the row and
  * compartment limits keep a hostile or mistaken file from turning into a web the engine would
@@ -6,6 +8,6 @@
 export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
 /** Rows over all tables of one upload. */
 export const MAX_UPLOAD_ROWS = 50_000;
-export const MAX_COMPARTMENTS = 400;
+export const MAX_COMPARTMENTS = API_LIMITS.compartments;
 /** Files in one upload (one per table at most, plus room for nothing else). */
 export const MAX_UPLOAD_FILES = 6;

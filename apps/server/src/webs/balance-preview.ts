@@ -1,29 +1,28 @@
-import type { BalanceChange, BalancePreview } from '@seinework/contracts';
-import { balanceNetwork, isBalanced, toWeb, type BalancingMethod, type Flux, type Network } from '@seinework/network-analysis';
+import type { BalanceChange, BalancePreview, Web } from '@seinework/contracts';
 
 /**
- * The editor's "balance and see what changed": the engine balances the web (METHODS.md §7) and
- * each number it changed is listed with its value before and after. Nothing is stored.
+ * The editor's "balance and see what changed": the engine balances the web (METHODS.md §7, on a
+ * worker) keeping every flow, import, export and respiration in place, and each number it changed
+ * is listed here with its value before and after. Nothing is stored.
  */
 
 /** Changes smaller than this share of the number are rounding, not a change to show. */
 const UNCHANGED = 1e-12;
 
-export function balancePreview(network: Network, method: BalancingMethod): BalancePreview {
-  const balanced = balanceNetwork(network, { method });
+export function balanceChanges(before: Web, after: Web): BalanceChange[] {
   const changes: BalanceChange[] = [];
-  balanced.fluxes.forEach((after, k) => {
-    const before = network.fluxes[k] as Flux | undefined;
-    const was = before?.value ?? 0;
-    if (Math.abs(after.value - was) <= UNCHANGED * Math.max(Math.abs(was), Math.abs(after.value))) return;
-    changes.push({
-      kind: after.kind,
-      from: after.from < 0 ? null : network.ids[after.from],
-      to: after.to < 0 ? null : network.ids[after.to],
-      fleet: after.fleet ?? null,
-      before: was,
-      after: after.value,
-    });
-  });
-  return { method, wasBalanced: isBalanced(network), web: toWeb(balanced), changes };
+  const compare = (kind: BalanceChange['kind'], was: { value: number } | undefined, now: { value: number; from?: string; to?: string; fleet?: string }) => {
+    const old = was?.value ?? 0;
+    if (Math.abs(now.value - old) <= UNCHANGED * Math.max(Math.abs(old), Math.abs(now.value))) return;
+    changes.push({ kind, from: now.from ?? null, to: now.to ?? null, fleet: now.fleet ?? null, before: old, after: now.value });
+  };
+  after.flows.forEach((f, k) => compare('flow', before.flows[k], f));
+  after.imports.forEach((f, k) => compare('import', before.imports[k], f));
+  after.exports.forEach((f, k) => compare('export', before.exports[k], f));
+  after.respiration.forEach((f, k) => compare('respiration', before.respiration[k], f));
+  return changes;
+}
+
+export function balancePreview(before: Web, balanced: Omit<BalancePreview, 'changes'>): BalancePreview {
+  return { ...balanced, changes: balanceChanges(before, balanced.web) };
 }

@@ -2,11 +2,13 @@ import { Router, type Request } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { balancePreviewBodySchema, cloneBodySchema, newVersionBodySchema, uploadFieldsSchema, webDetailsSchema, webListQuerySchema } from '@seinework/contracts';
-import { createNetwork } from '@seinework/network-analysis';
 import { MAX_UPLOAD_BYTES, MAX_UPLOAD_FILES, readUpload } from '@seinework/web-tables';
 import { currentUser, requireAction } from '../auth/guards';
 import type { Db } from '../db/database';
+import type { EngineJobs } from '../engine/engine-jobs';
+import { clientSignal } from '../http/client-signal';
 import { RequestError } from '../http/errors';
+import { tableSelection } from '../http/table-selection';
 import { parseInput } from '../validate';
 import { balancePreview } from './balance-preview';
 import { EXPORT_FORMATS, exportFile } from './export-file';
@@ -25,7 +27,7 @@ const upload = multer({
   limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_UPLOAD_FILES, fields: 10, fieldSize: 10_000, parts: 20 },
 }).array('file', MAX_UPLOAD_FILES);
 
-export function webRoutes({ db }: { db: Db }): Router {
+export function webRoutes({ db, engine }: { db: Db; engine: EngineJobs }): Router {
   const router = Router();
   const webs = new WebService(db);
   const versionOf = (request: Request) => parseInput(versionAddress, request.params, 'address');
@@ -50,9 +52,11 @@ export function webRoutes({ db }: { db: Db }): Router {
     response.status(201).json({ ...created, warnings: read.warnings });
   });
 
-  router.post('/balance', requireAction('webs.edit'), (request, response) => {
+  router.post('/balance', requireAction('webs.edit'), async (request, response) => {
     const body = parseInput(balancePreviewBodySchema, request.body);
-    response.json(balancePreview(createNetwork(checkedWeb(body.web)), body.method));
+    const web = checkedWeb(body.web, 'web.');
+    const balanced = JSON.parse((await engine.balanceOffThread(web, body.method, { signal: clientSignal(request, response) })).toString('utf8'));
+    response.json(balancePreview(web, balanced));
   });
 
   router.get('/:id', requireAction('webs.read-published'), async (request, response) => {
@@ -63,7 +67,7 @@ export function webRoutes({ db }: { db: Db }): Router {
   router.post('/:id/versions', requireAction('webs.edit'), async (request, response) => {
     const { id } = parseInput(webAddress, request.params, 'address');
     const body = parseInput(newVersionBodySchema, request.body);
-    const created = await webs.newVersion(currentUser(response), id, { web: checkedWeb(body.web), note: body.note ?? '', basedOn: body.basedOn ?? null });
+    const created = await webs.newVersion(currentUser(response), id, { web: checkedWeb(body.web, 'web.'), note: body.note ?? '', basedOn: body.basedOn ?? null });
     response.status(201).json(created);
   });
 
@@ -94,8 +98,9 @@ export function webRoutes({ db }: { db: Db }): Router {
   router.get('/:id/versions/:versionId/analysis', requireAction('webs.read-published'), async (request, response) => {
     const { id, versionId } = versionOf(request);
     const user = currentUser(response);
+    const tables = tableSelection(request);
     await webs.visibleVersion(user, id, versionId);
-    response.json(await versionAnalysis(db, versionId, async () => (await webs.version(user, id, versionId)).web));
+    response.json(await versionAnalysis(db, engine, versionId, tables, async () => (await webs.version(user, id, versionId)).web, clientSignal(request, response)));
   });
 
   return router;

@@ -7,9 +7,9 @@ import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { users, webs, webVersions } from '../db/schema';
 import { RequestError } from '../http/errors';
+import { requireWebWithinLimits } from '../http/size-limits';
 import { insertWebRows, readWeb } from './version-rows';
 import { readsDrafts, visibleVersion, visibleWeb } from './visibility';
-import { requireWithinLimits } from './web-limits';
 
 /**
  * Stored webs and their versions: every query and transaction of the webs routes. Every save is a
@@ -30,9 +30,9 @@ export interface NewWeb {
 }
 
 /** Checks a web as the engine does (shape, then structure) and against the size limits; 422 / 413 otherwise. */
-export function checkedWeb(input: unknown): Web {
+export function checkedWeb(input: unknown, where = ''): Web {
+  requireWebWithinLimits(input, where);
   const web = parseWeb(input);
-  requireWithinLimits(web);
   createNetwork(web);
   return web;
 }

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { check, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique } from 'drizzle-orm/pg-core';
-import type { CompartmentKind, VersionStatus } from '@seinework/contracts';
+import type { CompartmentKind, TableSelection, VersionStatus } from '@seinework/contracts';
 import { users } from './accounts';
 
 /**
@@ -136,11 +136,17 @@ export const versionRespiration = pgTable(
   (table) => [primaryKey({ columns: [table.versionId, table.position] })],
 );
 
-/** The engine's analysis of a version, computed once (a version's web never changes). */
-export const versionAnalyses = pgTable('version_analyses', {
-  versionId: text('version_id')
-    .primaryKey()
-    .references(() => webVersions.id),
-  document: jsonb('document').notNull(),
-  computedAt: at('computed_at').notNull().defaultNow(),
-});
+/** The engine's analysis of a version, computed once (a version's web never changes), per table selection. */
+export const versionAnalyses = pgTable(
+  'version_analyses',
+  {
+    versionId: text('version_id')
+      .notNull()
+      .references(() => webVersions.id),
+    /** 'summary' or 'all' (the `?tables=` of the analysis route). */
+    tables: text('tables').$type<TableSelection>().notNull(),
+    document: jsonb('document').notNull(),
+    computedAt: at('computed_at').notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.versionId, table.tables] })],
+);
