@@ -1,7 +1,8 @@
 import { isBalanced } from './balance-check';
 import { identityMinus, solve, transpose } from './linear-algebra';
 import { leastChangeBalance } from './least-change';
-import { OUTSIDE, withFluxValues, type Flux, type Network } from './network';
+import { describeFlux } from './flux-label';
+import { withFluxValues, type Network } from './network';
 import { WebError } from './web-error';
 import { downstreamOf, upstreamOf } from './reachability';
 
@@ -123,18 +124,4 @@ function requirePinsHeld(
     }
   }
   if (problems.length > 0) throw new WebError('infeasible', problems);
-}
-
-function describeFlux(network: Network, f: Flux): string {
-  const id = (i: number) => (i === OUTSIDE ? 'outside' : `"${network.ids[i]}"`);
-  switch (f.kind) {
-    case 'flow':
-      return `flow ${id(f.from)} → ${id(f.to)}`;
-    case 'import':
-      return `import into ${id(f.to)}`;
-    case 'export':
-      return f.fleet === undefined ? `export from ${id(f.from)}` : `catch of ${id(f.from)} by fleet "${f.fleet}"`;
-    case 'respiration':
-      return `respiration of ${id(f.from)}`;
-  }
 }

@@ -6,6 +6,7 @@ export * from './balancing';
 export * from './cycle-removal';
 export * from './cycles';
 export * from './finn-cycling-index';
+export * from './flux-label';
 export * from './fishery-indicators';
 export * from './id-map';
 export * from './information-indices';

@@ -1,4 +1,5 @@
 import { imbalances, isBalanced } from './balance-check';
+import { describeFlux } from './flux-label';
 import { OUTSIDE, withFluxValues, type Network } from './network';
 import { WebError } from './web-error';
 
@@ -22,6 +23,11 @@ import { WebError } from './web-error';
  * held fluxes already balance it as a whole, one multiplier is grounded; otherwise the dual is linear
  * along that vector and is maximised exactly along it, which releases fixed fluxes across the
  * group's edge; when there are none, no x ≥ 0 balances the group: it is infeasible.
+ *
+ * Limits of double precision, each refused with a WebError naming the fluxes: a variance that
+ * overflows (cv × value beyond about 1e154) cannot weigh its flux; variances of one compartment's
+ * fluxes that differ by more than about 1e15 leave its normal equations without a usable pivot.
+ * A variance that underflows to 0 holds its flux, as cv 0 does.
  */
 
 /** Flows in such webs are commonly uncertain by 20-30 % (common practice). */
@@ -42,6 +48,7 @@ const MAX_HALVINGS = 40;
 
 /** The free fluxes (in the donor/recipient terms of A) and what the held ones contribute. */
 interface Problem {
+  readonly network: Network;
   readonly ids: readonly string[];
   /** Flux index of each free flux. */
   readonly flux: number[];
@@ -74,6 +81,12 @@ export function leastChangeBalance(network: Network, options: LeastChangeOptions
   problem.flux.forEach((k, m) => {
     values[k] = state.x[m];
   });
+  const lost = problem.flux.filter((_, m) => !Number.isFinite(state.x[m]));
+  if (lost.length > 0) {
+    throw new WebError('infeasible', [
+      `least-change balancing lost ${lost.map((k) => describeFlux(network, network.fluxes[k])).join(', ')} to rounding: the flux weights (cv × value) of this web span more than double precision can resolve`,
+    ]);
+  }
   const balanced = withFluxValues(network, values);
   // The dual converges relative to the flux each compartment carried before; a compartment left
   // carrying a tiny fraction of that (1e-17 of it, say) is balanced to that scale but not to its own.
@@ -90,6 +103,7 @@ export function leastChangeBalance(network: Network, options: LeastChangeOptions
 function setUp(network: Network, defaultCv: number, pinned: ReadonlySet<number>): Problem {
   const n = network.n;
   const problem: Problem = {
+    network,
     ids: network.ids,
     flux: [],
     from: [],
@@ -99,11 +113,16 @@ function setUp(network: Network, defaultCv: number, pinned: ReadonlySet<number>)
     heldNet: new Array<number>(n).fill(0),
     scale: new Array<number>(n).fill(0),
   };
+  const unweighable: string[] = [];
   network.fluxes.forEach((f, k) => {
     if (f.to !== OUTSIDE) problem.scale[f.to] += f.value;
     if (f.from !== OUTSIDE) problem.scale[f.from] += f.value;
     const sd = (f.cv ?? defaultCv) * f.value;
-    if (pinned.has(k) || f.value === 0 || !(sd > 0)) {
+    if (!pinned.has(k) && !Number.isFinite(sd * sd)) {
+      unweighable.push(`least-change balancing cannot weigh ${describeFlux(network, f)}: cv × value = ${sd} is too large (its square overflows double precision); lower its cv or its value`);
+    }
+    // a variance that underflows to 0 holds the flux, as cv 0 does
+    if (pinned.has(k) || f.value === 0 || !(sd * sd > 0)) {
       if (f.to !== OUTSIDE) problem.heldNet[f.to] += f.value;
       if (f.from !== OUTSIDE) problem.heldNet[f.from] -= f.value;
       return;
@@ -114,6 +133,7 @@ function setUp(network: Network, defaultCv: number, pinned: ReadonlySet<number>)
     problem.x0.push(f.value);
     problem.v.push(sd * sd);
   });
+  if (unweighable.length > 0) throw new WebError('infeasible', unweighable);
   return problem;
 }
 
@@ -128,7 +148,7 @@ function solveDual(problem: Problem): DualState {
   throw new WebError(
     'infeasible',
     unbalanced(problem, state.g).map(
-      (j) => `least-change balancing did not converge for compartment "${problem.ids[j]}" (inputs − outputs = ${state.g[j]})`,
+      (j) => `least-change balancing did not converge for compartment "${problem.ids[j]}" (inputs − outputs = ${state.g[j]}); ${weightSpread(problem, state, j)}`,
     ),
   );
 }
@@ -262,7 +282,7 @@ function infeasibleGroup(problem: Problem, members: readonly number[], gC: numbe
       ? `take in ${gC} more than they give out and no free flux can carry it away`
       : `give out ${-gC} more than they take in and no free flux can supply it`;
   return new WebError('infeasible', [
-    `cannot balance ${names} with the held fluxes (pinned, cv 0 or zero) and every flux ≥ 0: together they ${what}`,
+    `cannot balance ${names} with the held fluxes (pinned, zero, or with cv 0 or a cv × value too small to weigh) and every flux ≥ 0: together they ${what}`,
   ]);
 }
 
@@ -305,6 +325,7 @@ function newtonDirection(problem: Problem, state: DualState, groups: readonly Gr
       free.map((i) => free.map((j) => H[i][j])),
       free.map((j) => state.g[j]),
     );
+    if (!Array.isArray(dGroup)) throw unresolvableWeights(problem, state, free[dGroup.notPositiveAt]);
     free.forEach((j, i) => {
       d[j] = dGroup[i];
     });
@@ -316,14 +337,14 @@ function newtonDirection(problem: Problem, state: DualState, groups: readonly Gr
  * Cholesky solve after symmetric diagonal scaling: variances of fluxes in one web can span many
  * orders of magnitude, and the scaling keeps the pivots of order one.
  */
-function solveSymmetricPositive(H: number[][], rhs: number[]): number[] {
+function solveSymmetricPositive(H: number[][], rhs: number[]): number[] | { notPositiveAt: number } {
   const size = rhs.length;
   const s = H.map((row, i) => 1 / Math.sqrt(row[i]));
   const L = H.map((row, i) => row.map((h, j) => h * s[i] * s[j]));
   for (let j = 0; j < size; j++) {
     let pivot = L[j][j];
     for (let k = 0; k < j; k++) pivot -= L[j][k] * L[j][k];
-    if (!(pivot > 0)) throw new Error('normal equations are not positive definite');
+    if (!(pivot > 0)) return { notPositiveAt: j };
     L[j][j] = Math.sqrt(pivot);
     for (let i = j + 1; i < size; i++) {
       let sum = L[i][j];
@@ -341,4 +362,29 @@ function solveSymmetricPositive(H: number[][], rhs: number[]): number[] {
     y[i] /= L[i][i];
   }
   return y.map((yi, i) => yi * s[i]);
+}
+
+/**
+ * The normal equations lost their pivot at compartment j: its working-set fluxes' variances differ
+ * by more than double precision resolves.
+ */
+function unresolvableWeights(problem: Problem, state: DualState, j: number): WebError {
+  return new WebError('infeasible', [
+    `least-change balancing cannot solve for compartment "${problem.ids[j]}": ${weightSpread(problem, state, j)}, wider than double precision can resolve; bring their cvs closer together, or hold a flux exactly with cv 0`,
+  ]);
+}
+
+/** The standard deviations of compartment j's free fluxes, largest and smallest, for messages. */
+function weightSpread(problem: Problem, state: DualState, j: number): string {
+  const touching = problem.flux
+    .map((k, m) => ({ k, m }))
+    .filter(({ m }) => state.x[m] > 0 && (problem.from[m] === j || problem.to[m] === j))
+    .sort((a, b) => problem.v[b.m] - problem.v[a.m]);
+  const describe = ({ k, m }: { k: number; m: number }) => {
+    const f = problem.network.fluxes[k];
+    return `${Math.sqrt(problem.v[m]).toPrecision(3)} (${describeFlux(problem.network, f)}, value ${f.value})`;
+  };
+  if (touching.length === 0) return 'none of its fluxes is free to change';
+  const range = touching.length === 1 ? describe(touching[0]) : `${describe(touching[0])} to ${describe(touching[touching.length - 1])}`;
+  return `the standard deviations (cv × value) of its fluxes range from ${range}`;
 }
