@@ -8,11 +8,8 @@ export function problemMessage(error: unknown): string {
   if (!(error instanceof HttpErrorResponse)) return error instanceof Error ? error.message : String(error);
   if (error.status === 0) return 'The server cannot be reached. Check your connection and try again.';
   if (error.status === 429) return tooManyAttempts(error);
-  const body: unknown = error.error;
-  if (body && typeof body === 'object' && 'error' in body && typeof body.error === 'string') {
-    const details = 'details' in body && Array.isArray(body.details) ? body.details.filter((d): d is string => typeof d === 'string') : [];
-    return details.length > 0 ? `${body.error}: ${details.join('; ')}` : body.error;
-  }
+  const said = serverSays(error.error);
+  if (said) return said;
   if (error.status >= 500) return 'The server ran into a problem. Try again in a moment.';
   return `The request was refused (${error.status} ${error.statusText}).`;
 }
@@ -20,7 +17,7 @@ export function problemMessage(error: unknown): string {
 /** 429: say how long to wait, from the Retry-After header (seconds) when the server sends it. */
 function tooManyAttempts(error: HttpErrorResponse): string {
   const seconds = Number(error.headers.get('Retry-After'));
-  if (!Number.isFinite(seconds) || seconds <= 0) return 'Too many attempts. Wait a while, then try again.';
+  if (!Number.isFinite(seconds) || seconds <= 0) return serverSays(error.error) ?? 'Too many attempts. Wait a while, then try again.';
   return `Too many attempts. Try again in ${waitFor(seconds)}.`;
 }
 
@@ -28,4 +25,11 @@ function waitFor(seconds: number): string {
   if (seconds < 60) return seconds === 1 ? '1 second' : `${Math.ceil(seconds)} seconds`;
   const minutes = Math.ceil(seconds / 60);
   return minutes === 1 ? '1 minute' : `${minutes} minutes`;
+}
+
+/** The `{error, details?}` body of the server's error answers, as one sentence. */
+function serverSays(body: unknown): string | null {
+  if (!body || typeof body !== 'object' || !('error' in body) || typeof body.error !== 'string') return null;
+  const details = 'details' in body && Array.isArray(body.details) ? body.details.filter((d): d is string => typeof d === 'string') : [];
+  return details.length > 0 ? `${body.error}: ${details.join('; ')}` : body.error;
 }
