@@ -1,4 +1,6 @@
 import { spawnSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { generateWeb } from '../libs/network-analysis/src/testing/generated-web';
 import cone from './fixtures/cone-spring.json';
 import { repositoryRoot, runTool, temporaryFile } from './support/run-command';
 
@@ -55,6 +57,7 @@ describe('npm run analyze', () => {
     ['an unknown key', { ...cone, colour: 'teal' }, /colour/],
     ['a web that carries no flow', { ...cone, flows: [], imports: [], exports: [], respiration: [] }, /carries no flow/],
     ['a non-finite value', '{"name":"x","unit":"u","compartments":[{"id":"a","name":"A","kind":"producer"}],"flows":[],"imports":[{"to":"a","value":1e999}],"exports":[],"respiration":[]}', /imports\[0\]\.value/],
+    ['a key given twice', JSON.stringify(cone).replace('"value":', '"value":1,"value":'), /web file .*: flows\[0\]: duplicate key "value"/],
     ['an unbalanced web', { ...cone, imports: [{ to: 'plants', value: 11000 }, cone.imports[1]] }, /"plants" is unbalanced.* — balance it with: npm run --silent balance -- WEB.json/],
   ];
   it.each(badInputs)('exits 2 with one line on stderr and nothing on stdout for %s', (_, content, message) => {
@@ -64,6 +67,27 @@ describe('npm run analyze', () => {
     expect(result.stderr).toMatch(message);
     expect(result.stderr.trim().split('\n')).toHaveLength(1);
     expect(result.stderr).not.toMatch(/\n\s+at /);
+  });
+
+  it('lists the first 20 problems and counts the rest, however many there are', () => {
+    const flows = Array.from({ length: 5000 }, (_, i) => ({ from: 'plants', to: `nowhere-${i}`, value: 1 }));
+    const result = runTool('analyze.ts', [temporaryFile('web.json', { ...cone, flows })]);
+    expect(result.status).toBe(2);
+    expect(result.stderr.trim().split('\n')).toHaveLength(1);
+    expect(result.stderr).toMatch(/flows\[19\]: unknown compartment "nowhere-19"; …and 4980 more problems\n$/);
+    expect(result.stderr).not.toMatch(/nowhere-20"/);
+  });
+
+  it('ends quietly when its reader stops early (piped into head)', () => {
+    // a document well past a pipe's buffer, so that the write meets the closed pipe
+    const web = temporaryFile('web.json', generateWeb({ compartments: 60, seed: 6, density: 0.3 }));
+    const errors = temporaryFile('stderr.txt', '');
+    const result = spawnSync('bash', ['-c', `"${repositoryRoot}/node_modules/.bin/tsx" tools/analyze.ts "${web}" 2>"${errors}" | head -c 100 >/dev/null; echo "\${PIPESTATUS[0]}"`], {
+      cwd: repositoryRoot,
+      encoding: 'utf8',
+    });
+    expect(readFileSync(errors, 'utf8')).toBe('');
+    expect(result.stdout.trim()).toBe('0');
   });
 
   it('exits 2 naming a missing file', () => {

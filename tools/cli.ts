@@ -1,11 +1,21 @@
 import { readFileSync } from 'node:fs';
+import { findDuplicateKey } from '@seinework/contracts';
 import { WebError } from '@seinework/network-analysis';
 
 /**
  * What every command-line entry point shares (METHODS.md §11): read JSON files, print exactly one
  * JSON document on success, and on bad input print one line on stderr and exit with code 2 —
- * never a stack trace, never anything on stdout.
+ * never a stack trace, never anything on stdout. A line lists at most the first 20 problems and
+ * counts the rest (WebError's message); output piped into a reader that stops early (`| head`) ends quietly.
  */
+
+// the reader went away (EPIPE): there is nobody left to tell anything to
+for (const stream of [process.stdout, process.stderr]) {
+  stream.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code !== 'EPIPE') throw error;
+    process.exit(process.exitCode ?? 0);
+  });
+}
 
 export class InputError extends Error {}
 
@@ -18,11 +28,16 @@ export function readJsonFile(path: string | undefined, what: string): unknown {
     const code = (error as NodeJS.ErrnoException).code;
     throw new InputError(code === 'ENOENT' ? `${what} file not found: ${path}` : `cannot read ${what} file ${path} (${code ?? 'error'})`);
   }
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch (error) {
     throw new InputError(`${what} file ${path} is not valid JSON: ${(error as Error).message}`);
   }
+  // JSON.parse keeps the last of two equal keys without a word: refuse them instead
+  const duplicate = findDuplicateKey(text);
+  if (duplicate) throw new InputError(`${what} file ${path}: ${duplicate}`);
+  return value;
 }
 
 /** Runs a command body; known input errors exit 2 with one line, anything else exits 1 with one line. */
