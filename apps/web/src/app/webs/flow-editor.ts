@@ -23,7 +23,7 @@ const TABLE_TITLES: Record<EditorTable, { title: string; row: string; explain: s
   compartments: { title: 'Compartments', row: 'compartment', explain: 'Producers, consumers and detritus pools. Flows name compartments by id.' },
   flows: { title: 'Flows', row: 'flow', explain: 'Material passed from one compartment to another: what is eaten, and what becomes detritus.' },
   imports: { title: 'Imports', row: 'import', explain: 'What enters from outside: primary production of producers, and any immigration or inflow.' },
-  exports: { title: 'Exports and harvest', row: 'export', explain: 'What leaves the web. An export with a fleet is a harvest; its price is per tonne landed.' },
+  exports: { title: 'Exports', row: 'export', explain: 'What leaves the web. An export with a fleet is a harvest; its price is per tonne landed.' },
   respiration: { title: 'Respiration', row: 'respiration', explain: 'What each compartment respires.' },
 };
 

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, OnInit, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, Injector, OnInit, afterNextRender, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
@@ -21,6 +21,7 @@ import { UploadStore } from './upload-store';
 export class UploadPage implements OnInit {
   protected readonly store = inject(UploadStore);
   private readonly router = inject(Router);
+  private readonly injector = inject(Injector);
 
   protected readonly files = signal<File[]>([]);
   protected readonly name = signal('');
@@ -52,5 +53,7 @@ export class UploadPage implements OnInit {
       note: this.note().trim(),
     });
     if (created) this.router.navigate(['/webs', created.id], { queryParams: { version: created.versionId } });
+    // a refused upload: take the person (and their screen reader) to the list of problems
+    else afterNextRender(() => document.getElementById('upload-problems-title')?.focus(), { injector: this.injector });
   }
 }

@@ -11,7 +11,7 @@ const TABLE_ORDER = ['file', 'web', 'compartments', 'flows', 'imports', 'exports
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="problems" role="alert" aria-labelledby="upload-problems-title">
-      <h2 id="upload-problems-title">Nothing was stored: {{ headline() }}</h2>
+      <h2 id="upload-problems-title" tabindex="-1">Nothing was stored: {{ headline() }}</h2>
       <p>Fix {{ problems().length === 1 ? 'it' : 'them' }} in your file and upload it again. Rows are counted as your spreadsheet shows them, the header row being row 1.</p>
       <div class="table-scroll">
         <table mat-table [dataSource]="ordered()" aria-label="Problems found in the upload">

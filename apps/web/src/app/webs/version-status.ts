@@ -18,7 +18,7 @@ import type { VersionStatus } from '@seinework/contracts';
       background: var(--mat-sys-surface-container-highest);
       color: var(--mat-sys-on-surface-variant);
     }
-    .published { background: var(--mat-sys-primary-container); color: var(--mat-sys-on-primary-container); }
+    .published { background: #cfe6e4; color: #00504f; }
   `,
 })
 export class VersionStatusChip {

@@ -43,7 +43,9 @@ describe('layoutWeb', () => {
     expect(linkWidth(25, 100) - MIN_LINK_WIDTH).toBeCloseTo((MAX_LINK_WIDTH - MIN_LINK_WIDTH) / 2, 12);
   });
 
-  it('marks every whole trophic level up to the highest compartment', () => {
-    expect(layout.ticks.map((t) => t.level)).toEqual([1, 2, 3, 4]);
+  it('marks every whole trophic level up to the highest compartment, which sits at the top', () => {
+    expect(layout.ticks.map((t) => t.level)).toEqual([1, 2, 3]);
+    expect(at('f').y).toBeLessThan(layout.ticks[2].y);
+    expect(Math.min(...layout.nodes.map((n) => n.y))).toBe(at('f').y);
   });
 });

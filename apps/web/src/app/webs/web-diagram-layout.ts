@@ -51,7 +51,7 @@ export function linkWidth(value: number, maxValue: number): number {
 
 export function layoutWeb(web: Web, trophicLevels: Record<string, number>, width = 960, height = 560): DiagramLayout {
   const levelOf = (id: string) => trophicLevels[id] ?? 1;
-  const top = Math.max(2, Math.ceil(Math.max(1, ...web.compartments.map((c) => levelOf(c.id)))));
+  const top = Math.max(2, ...web.compartments.map((c) => levelOf(c.id)));
   const plotHeight = height - MARGIN.top - MARGIN.bottom;
   const yOf = (level: number) => MARGIN.top + ((top - level) / (top - 1)) * plotHeight;
 
@@ -87,7 +87,7 @@ export function layoutWeb(web: Web, trophicLevels: Record<string, number>, width
   // thick flows first so that thin ones stay visible on top
   links.sort((a, b) => b.value - a.value);
 
-  const ticks = Array.from({ length: top }, (_, k) => ({ level: k + 1, y: yOf(k + 1) }));
+  const ticks = Array.from({ length: Math.floor(top) }, (_, k) => ({ level: k + 1, y: yOf(k + 1) }));
   return { width, height, nodes, links, ticks, maxValue };
 }
 

@@ -23,10 +23,13 @@ export class WebDiagram {
     const { nodes, links } = this.layout();
     return `${nodes.length} compartments placed by trophic level, ${links.length} flows drawn as arrows whose width grows with the square root of the flow. The table below lists every flow.`;
   });
-  /** Three sample widths for the legend: the largest flow, a tenth and a hundredth of it. */
+  /** Three sample widths for the legend at round numbers: about the largest flow, a tenth and a hundredth of it. */
   protected readonly legendFlows = computed(() => {
     const max = this.layout().maxValue;
-    return [max, max / 10, max / 100].filter((v) => v > 0).map((value) => ({ value, width: linkWidth(value, max) }));
+    if (max <= 0) return [];
+    const magnitude = 10 ** Math.floor(Math.log10(max));
+    const largest = Math.floor(max / magnitude) * magnitude;
+    return [largest, largest / 10, largest / 100].map((value) => ({ value, width: linkWidth(value, max) }));
   });
   protected readonly flowRows = computed(() => [...this.layout().links].sort((a, b) => a.fromName.localeCompare(b.fromName) || b.value - a.value));
   protected readonly widths = { min: MIN_LINK_WIDTH, max: MAX_LINK_WIDTH };

@@ -9,7 +9,6 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import type { VersionSummary } from '@seinework/contracts';
 import { SessionStore } from '../auth/session-store';
-import { Caution } from '../shared/caution';
 import { FitnessCurve } from '../shared/fitness-curve';
 import { CloneDialog, type CloneDetails } from './clone-dialog';
 import { HeadlineIndicators } from './headline-indicators';
@@ -29,7 +28,6 @@ import { WebPageStore } from './web-page-store';
     MatMenuModule,
     MatProgressBarModule,
     MatTableModule,
-    Caution,
     FitnessCurve,
     HeadlineIndicators,
     TrophicPositions,
