@@ -54,6 +54,26 @@ function angularSuite(): Tally {
   return { passed, failed: failed + (unexplained ? 1 : 0) };
 }
 
+/** @playwright/test in Debian's Chromium against the real server (playwright.config.ts), counted from its JSON report. */
+function playwrightSuite(label: string): Tally {
+  const report = join(reportDir, 'e2e.json');
+  console.log(`\n▶ ${label}`);
+  const result = spawnSync(bin('playwright'), ['test'], {
+    encoding: 'utf8',
+    stdio: ['ignore', 'pipe', 'pipe'],
+    env: { ...process.env, FORCE_COLOR: '0', NO_COLOR: '1', PLAYWRIGHT_JSON_OUTPUT_FILE: report },
+  });
+  process.stdout.write(`${result.stdout ?? ''}${result.stderr ?? ''}`);
+  try {
+    const json = JSON.parse(readFileSync(report, 'utf8')) as { stats: { expected: number; unexpected: number; flaky: number }; errors: unknown[] };
+    // a global setup that failed, or a file that did not load, shows up in errors with no failed test
+    const unexplained = result.status !== 0 && json.stats.unexpected + json.stats.flaky === 0 ? 1 : 0;
+    return { passed: json.stats.expected, failed: json.stats.unexpected + json.stats.flaky + Math.max(unexplained, json.errors.length > 0 ? 1 : 0) };
+  } catch {
+    return { passed: 0, failed: 1 };
+  }
+}
+
 const tallies: Tally[] = [
   check('typecheck (libs, server, tools, tests)', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']),
   check('production build of the browser app (template typecheck)', bin('ng'), ['build', 'web']),
@@ -61,6 +81,7 @@ const tallies: Tally[] = [
   angularSuite(),
   // after the production build above: the built app, the real server and Debian's Chromium
   vitestSuite('first screen in Chromium (vitest + playwright-core)', 'vitest.browser.config.ts'),
+  playwrightSuite('end-to-end in Chromium (@playwright/test, real server on a fresh data folder)'),
 ];
 const passed = tallies.reduce((s, t) => s + t.passed, 0);
 const failed = tallies.reduce((s, t) => s + t.failed, 0);
