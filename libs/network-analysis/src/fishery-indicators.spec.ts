@@ -137,6 +137,22 @@ describe('fisheryIndicators', () => {
     });
   });
 
+  it('refuses tonnes or a value that overflow rather than print them as null ("not given")', () => {
+    const tonnes = catchWebError(() => indicatorsOf(createNetwork({ ...fishedConeSpring(), tonnesPerUnit: 1e307 })));
+    expect(tonnes.problems[0]).toMatch(/^the total catch in tonnes \(areaKm2 2 × tonnesPerUnit 1e\+307 × catch 200\) is too large to compute/);
+    const web = fishedConeSpring();
+    web.exports.find((e) => e.fleet === 'trap')!.price = 1e308;
+    const value = catchWebError(() => indicatorsOf(createNetwork(web)));
+    expect(value.problems).toEqual([
+      expect.stringMatching(/^the value of the total catch \(tonnes × price\) is too large to compute/),
+      expect.stringMatching(/^the value of the catch of fleet "trap" \(tonnes × price\) is too large to compute/),
+    ]);
+    const unpriced = { ...fishedConeSpring(), tonnesPerUnit: 1e305 };
+    unpriced.exports = unpriced.exports.map(({ price: _, ...e }) => e);
+    const ruleOfThumb = catchWebError(() => indicatorsOf(createNetwork(unpriced)));
+    expect(ruleOfThumb.problems).toEqual([expect.stringMatching(/^the rule-of-thumb primary production required .* is too large to compute/)]);
+  });
+
   it('share is null with no primary production', () => {
     const web: Web = {
       name: 'detritus only',

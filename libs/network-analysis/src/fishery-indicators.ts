@@ -52,6 +52,15 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
   const total = catchIndicators(network, Y, production, trophicLevels, prices(network));
   const primaryProduction = z.reduce((sum, w, j) => sum + (kinds[j] === 'producer' ? w : 0), 0);
   const tonnesPerUnit = tonnesPerFlowUnit(network);
+  const perFleet = fleets.map((fleet, f): [string, FleetIndicators] => [fleet, catchIndicators(network, catches[f], production, trophicLevels, prices(network, fleet))]);
+  requireFiniteTonnesAndValue(network, [['the total catch', total], ...perFleet.map(([fleet, c]): [string, FleetIndicators] => [`the catch of fleet "${fleet}"`, c])]);
+  const ruleOfThumb =
+    tonnesPerUnit === null
+      ? null
+      : ruleOfThumbPrimaryProductionRequired(Y.flatMap((y, i) => (y > 0 ? [{ tonnesWet: y * tonnesPerUnit, trophicLevel: trophicLevels[i] }] : [])));
+  if (ruleOfThumb !== null && !Number.isFinite(ruleOfThumb)) {
+    throw new WebError('invalid', ['the rule-of-thumb primary production required of the catch in tonnes is too large to compute (beyond 1.8e308): check areaKm2 and tonnesPerUnit']);
+  }
   return {
     totalCatch: total.catch,
     totalTonnes: total.tonnes,
@@ -60,16 +69,22 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
     primaryProductionIntensity: intensities(production),
     primaryProductionRequired: total.primaryProductionRequired,
     primaryProductionRequiredShare: primaryProduction > 0 ? total.primaryProductionRequired / primaryProduction : null,
-    ruleOfThumbPrimaryProductionRequired:
-      tonnesPerUnit === null
-        ? null
-        : ruleOfThumbPrimaryProductionRequired(
-            Y.flatMap((y, i) => (y > 0 ? [{ tonnesWet: y * tonnesPerUnit, trophicLevel: trophicLevels[i] }] : [])),
-          ),
-    fleets: idMap(
-      fleets.map((fleet, f) => [fleet, catchIndicators(network, catches[f], production, trophicLevels, prices(network, fleet))]),
-    ),
+    ruleOfThumbPrimaryProductionRequired: ruleOfThumb,
+    fleets: idMap(perFleet),
   };
+}
+
+/**
+ * Tonnes and value multiply the web's own factors (area × tonnes per unit × catch × price): an
+ * overflow would print as null in JSON, which reads as "not given". Refused, naming the factors.
+ */
+function requireFiniteTonnesAndValue(network: Network, catches: readonly [what: string, indicators: FleetIndicators][]): void {
+  const factors = `areaKm2 ${network.areaKm2} × tonnesPerUnit ${network.tonnesPerUnit}`;
+  const problems = catches.flatMap(([what, c]) => [
+    ...(c.tonnes !== null && !Number.isFinite(c.tonnes) ? [`${what} in tonnes (${factors} × catch ${c.catch}) is too large to compute (beyond 1.8e308): check areaKm2 and tonnesPerUnit`] : []),
+    ...(c.value !== null && !Number.isFinite(c.value) ? [`the value of ${what} (tonnes × price) is too large to compute (beyond 1.8e308): check the prices, areaKm2 and tonnesPerUnit`] : []),
+  ]);
+  if (problems.length > 0) throw new WebError('invalid', problems);
 }
 
 /**
