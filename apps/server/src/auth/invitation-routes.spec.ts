@@ -11,11 +11,10 @@ import { SESSION_COOKIE } from './session';
 
 let t: TestApp;
 let admin: TestAgent;
-// The first test app of a process builds the database image (migrations, hashed demo passwords).
 beforeEach(async () => {
   t = await createTestApp();
   admin = await t.signInAs('admin');
-}, 60_000);
+});
 afterEach(() => t.close());
 
 const PASSWORD = 'a long enough passphrase';

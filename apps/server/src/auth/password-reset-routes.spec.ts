@@ -8,11 +8,10 @@ import { createTestApp, TEST_ORIGIN, type TestAgent, type TestApp } from '../tes
 
 let t: TestApp;
 let admin: TestAgent;
-// The first test app of a process builds the database image (migrations, hashed demo passwords).
 beforeEach(async () => {
   t = await createTestApp();
   admin = await t.signInAs('admin');
-}, 60_000);
+});
 afterEach(() => t.close());
 
 const NEW_PASSWORD = 'a brand new passphrase';
