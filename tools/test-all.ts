@@ -2,6 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { withPostgresServer } from './postgres-server';
 
 /**
  * `npm test`: every suite of the project, each run even when an earlier one failed, then one plain
@@ -17,9 +18,9 @@ interface Tally {
 const bin = (name: string) => join('node_modules', '.bin', name);
 const reportDir = mkdtempSync(join(tmpdir(), 'seinework-tests-'));
 
-function run(label: string, command: string, args: string[]): { ok: boolean; output: string } {
+function run(label: string, command: string, args: string[], env: NodeJS.ProcessEnv = {}): { ok: boolean; output: string } {
   console.log(`\n▶ ${label}`);
-  const result = spawnSync(command, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0', NO_COLOR: '1' } });
+  const result = spawnSync(command, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, FORCE_COLOR: '0', NO_COLOR: '1', ...env } });
   const output = `${result.stdout ?? ''}${result.stderr ?? ''}`;
   process.stdout.write(output);
   return { ok: result.status === 0, output };
@@ -30,14 +31,24 @@ function check(label: string, command: string, args: string[]): Tally {
   return ok ? { passed: 1, failed: 0 } : { passed: 0, failed: 1 };
 }
 
-function vitestSuite(label: string, config: string): Tally {
-  const report = join(reportDir, `${config}.json`);
-  const { ok } = run(label, bin('vitest'), ['run', '--config', config, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]);
+function vitestSuite(label: string, config: string, paths: string[] = [], env: NodeJS.ProcessEnv = {}): Tally {
+  const report = join(reportDir, `${config}${paths.length > 0 ? `-${paths.join('-').replace(/\W+/g, '_')}` : ''}.json`);
+  const { ok } = run(label, bin('vitest'), ['run', '--config', config, ...paths, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], env);
   try {
     const json = JSON.parse(readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTestSuites: number; success: boolean };
     // a file that fails to load has no failed test of its own: count the run as one more failure
     return { passed: json.numPassedTests, failed: json.numFailedTests + (ok || json.numFailedTests > 0 ? 0 : 1) };
   } catch {
+    return { passed: 0, failed: 1 };
+  }
+}
+
+/** The server's tests again, each test file's database on a real PostgreSQL 15 server started for the run. */
+function postgresSuite(label: string): Tally {
+  try {
+    return withPostgresServer(55432, (url) => vitestSuite(label, 'vitest.config.ts', ['apps/server'], { TEST_DATABASE_URL: url }));
+  } catch (error) {
+    console.log(`\n▶ ${label}\n${(error as Error).message}`);
     return { passed: 0, failed: 1 };
   }
 }
@@ -78,6 +89,7 @@ const tallies: Tally[] = [
   check('typecheck (libs, server, tools, tests)', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']),
   check('production build of the browser app (template typecheck)', bin('ng'), ['build', 'web']),
   vitestSuite('engine, CLI and server tests (vitest)', 'vitest.config.ts'),
+  postgresSuite('server API tests on PostgreSQL'),
   angularSuite(),
   // after the production build above: the built app, the real server and Debian's Chromium
   vitestSuite('first screen in Chromium (vitest + playwright-core)', 'vitest.browser.config.ts'),
