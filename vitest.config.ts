@@ -6,8 +6,8 @@ export default defineConfig({
   test: {
     globals: true,
     include: ['libs/**/*.spec.ts', 'apps/server/**/*.spec.ts', 'tests/**/*.spec.ts'],
-    // need the built app and Chromium: vitest.browser.config.ts
-    exclude: ['tests/browser/**', '**/node_modules/**'],
+    // end-to-end specs need the built app and Chromium, and run under @playwright/test (playwright.config.ts)
+    exclude: ['tests/e2e/**', '**/node_modules/**'],
     testTimeout: 30_000,
     // a test database is migrated once per process (several seconds on a busy machine) in a beforeAll/beforeEach
     hookTimeout: 60_000,

@@ -92,7 +92,6 @@ const tallies: Tally[] = [
   postgresSuite('server API tests on PostgreSQL'),
   angularSuite(),
   // after the production build above: the built app, the real server and Debian's Chromium
-  vitestSuite('first screen in Chromium (vitest + playwright-core)', 'vitest.browser.config.ts'),
   playwrightSuite('end-to-end in Chromium (@playwright/test, real server on a fresh data folder)'),
 ];
 const passed = tallies.reduce((s, t) => s + t.passed, 0);
