@@ -12,6 +12,8 @@ export interface FakeSmtpOptions {
   readonly store: (message: ParsedMessage) => Promise<void>;
   /** Larger messages are refused with 552; Seinework's own messages are a few kilobytes. */
   readonly maxBytes?: number;
+  /** Where a failure to keep a message is reported (the server's log by default). */
+  readonly logStoreFailure?: (error: unknown) => void;
 }
 
 export interface FakeSmtp {
@@ -52,7 +54,7 @@ export async function startFakeSmtp(options: FakeSmtpOptions): Promise<FakeSmtp>
         options.store({ ...parsed, to: parsed.to || envelopeTo }).then(
           () => callback(),
           (error: unknown) => {
-            console.error('The local outbox could not keep a message:', error);
+            (options.logStoreFailure ?? ((failure) => console.error('The local outbox could not keep a message:', failure)))(error);
             callback(smtpError(451, 'The message could not be kept; try again later'));
           },
         );

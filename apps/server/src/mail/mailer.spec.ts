@@ -36,10 +36,12 @@ describe('mailer and fake SMTP server', () => {
   });
 
   it('answers a failed store with a temporary failure, so the sender knows nothing was kept', async () => {
+    const logged: unknown[] = [];
     const failing = await startFakeSmtp({
       store: async () => {
         throw new Error('disk full');
       },
+      logStoreFailure: (failure) => logged.push(failure),
     });
     const mailer = createMailer(failing.url);
     const error = await mailer.send({ to: 'a@example.test', subject: 's', text: 't' }).catch((caught: unknown) => caught);
@@ -47,6 +49,7 @@ describe('mailer and fake SMTP server', () => {
     await failing.close();
     expect(error).toBeInstanceOf(MailError);
     expect((error as Error).message).toContain(failing.url);
+    expect(logged).toEqual([new Error('disk full')]);
   });
 
   it('turns an unreachable server into a MailError naming it', async () => {
