@@ -46,6 +46,18 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'POST', path: '/api/auth/invitations/:token/accept', access: 'public' },
   { method: 'POST', path: '/api/auth/password-reset', access: 'public' },
   { method: 'POST', path: '/api/auth/password-reset/:token', access: 'public' },
+  // stored webs and their versions (webs-server)
+  { method: 'GET', path: '/api/webs', access: 'webs.read-published' },
+  { method: 'POST', path: '/api/webs', access: 'webs.create' },
+  { method: 'POST', path: '/api/webs/upload', access: 'webs.create' },
+  { method: 'POST', path: '/api/webs/balance', access: 'webs.edit' },
+  { method: 'GET', path: '/api/webs/:id', access: 'webs.read-published' },
+  { method: 'POST', path: '/api/webs/:id/versions', access: 'webs.edit' },
+  { method: 'GET', path: '/api/webs/:id/versions/:versionId', access: 'webs.read-published' },
+  { method: 'POST', path: '/api/webs/:id/versions/:versionId/publish', access: 'webs.publish' },
+  { method: 'POST', path: '/api/webs/:id/versions/:versionId/clone', access: 'webs.create' },
+  { method: 'GET', path: '/api/webs/:id/versions/:versionId/export', access: 'webs.read-published' },
+  { method: 'GET', path: '/api/webs/:id/versions/:versionId/analysis', access: 'webs.read-published' },
 ];
 
 /** Every route of the app as `METHOD /path`, read from Express's router (mounted routers included). */

@@ -1,3 +1,4 @@
+import { eq, like } from 'drizzle-orm';
 import { ROLES } from '@seinework/contracts';
 import { verifyPassword } from '../auth/passwords';
 import { openDatabase, type AppDatabase } from '../db/database';
@@ -20,7 +21,9 @@ describe('seedDemo', () => {
       expect(user.email).toBe(demoEmail(user.role));
       expect(await verifyPassword(user.passwordHash, DEMO_PASSWORD)).toBe(true);
     }
-    expect(await database.db.select().from(auditEvents)).toHaveLength(ROLES.length);
+    expect(await database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.created'))).toHaveLength(ROLES.length);
+    // the demo web: created and published by the demo analyst
+    expect((await database.db.select().from(auditEvents).where(like(auditEvents.action, 'web.%'))).map((e) => e.action)).toEqual(['web.created', 'web.published']);
     expect(await seedDemo(database, 'development')).toEqual({ seeded: false });
     expect(await database.db.select().from(users)).toHaveLength(ROLES.length);
   });

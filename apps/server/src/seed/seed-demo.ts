@@ -4,6 +4,7 @@ import { hashPassword } from '../auth/passwords';
 import type { AppDatabase, Db } from '../db/database';
 import { users } from '../db/schema';
 import { DEMO_PASSWORD, DEMO_USERS } from './demo-users';
+import { seedDemoWebs } from './demo-webs';
 
 export class DemoRefusedError extends Error {}
 
@@ -17,6 +18,7 @@ export async function seedDemo(database: AppDatabase, nodeEnv: string | undefine
   const existing = await database.db.select({ id: users.id }).from(users).limit(1);
   if (existing.length > 0) return { seeded: false };
   await seedDemoUsers(database.db);
+  await seedDemoWebs(database.db);
   return { seeded: true };
 }
 
