@@ -20,6 +20,7 @@ describe('sign-in', () => {
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);
     expect(cookie).not.toMatch(/Secure/i);
+    expect(cookie).toContain(`Max-Age=${12 * 3600}`);
   });
 
   it('refuses a wrong password and an unknown address with the same 401', async () => {

@@ -47,8 +47,8 @@ export function createSessions(db: Db, options: { secureCookies: boolean }): Ses
     sessionExpiresIn: new TimeSpan(SESSION_IDLE_HOURS, 'h'),
     sessionCookie: {
       name: SESSION_COOKIE,
-      // a browser cookie that ends with the browser too; the server-side expiry is what counts
-      expires: false,
+      // the cookie's Max-Age follows the session's idle expiry and is renewed with it
+      expires: true,
       attributes: { sameSite: 'lax', secure: options.secureCookies, path: '/' },
     },
     getUserAttributes: (attributes) => {
