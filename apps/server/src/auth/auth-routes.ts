@@ -54,6 +54,8 @@ export function authRoutes(options: AuthRouteOptions): Router {
       await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject: `user:${user.id}`, detail: refusal });
       throw new RequestError(401, WRONG);
     }
+    // sign-ins are when sessions are made, so also when the expired ones are swept away
+    await sessions.deleteExpired();
     const { cookie } = await sessions.create(user.id);
     await db.transaction(async (tx) => {
       await clearFailures(tx, user.id);

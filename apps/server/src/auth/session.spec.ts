@@ -36,6 +36,14 @@ describe('session expiry', () => {
     expect(await t.database.db.select().from(sessions).where(eq(sessions.id, session.id))).toHaveLength(0);
   });
 
+  it('expired sessions are swept away at the next sign-in, whoever signs in', async () => {
+    await t.signInAs('analyst');
+    const stale = await sessionOf('analyst');
+    await t.database.db.update(sessions).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, stale.id));
+    await t.signInAs('council');
+    expect(await t.database.db.select().from(sessions).where(eq(sessions.id, stale.id))).toHaveLength(0);
+  });
+
   it('a session in use is extended (sliding) and its cookie sent again', async () => {
     const agent = await t.signInAs('council');
     const session = await sessionOf('council');

@@ -40,6 +40,8 @@ export interface Sessions {
   invalidateUserSessions(userId: string, keepSessionId?: string): Promise<void>;
   /** The Set-Cookie value that removes the session cookie. */
   blankCookie(): string;
+  /** Removes sessions past their expiry (validation refuses them anyway; this keeps the table small). */
+  deleteExpired(): Promise<void>;
 }
 
 export function createSessions(db: Db, options: { secureCookies: boolean }): Sessions {
@@ -84,6 +86,7 @@ export function createSessions(db: Db, options: { secureCookies: boolean }): Ses
       await Promise.all(all.filter((s) => s.id !== keepSessionId).map((s) => lucia.invalidateSession(s.id)));
     },
     blankCookie: () => lucia.createBlankSessionCookie().serialize(),
+    deleteExpired: () => lucia.deleteExpiredSessions(),
   };
 }
 

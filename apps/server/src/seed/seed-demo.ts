@@ -17,8 +17,11 @@ export async function seedDemo(database: AppDatabase, nodeEnv: string | undefine
   if (nodeEnv === 'production') throw new DemoRefusedError('Demo data is never seeded when NODE_ENV=production');
   const existing = await database.db.select({ id: users.id }).from(users).limit(1);
   if (existing.length > 0) return { seeded: false };
-  await seedDemoUsers(database.db);
-  await seedDemoWebs(database.db);
+  // all or nothing: a seed that failed half-way would otherwise be skipped at every later start
+  await database.db.transaction(async (tx) => {
+    await seedDemoUsers(tx);
+    await seedDemoWebs(tx);
+  });
   return { seeded: true };
 }
 
