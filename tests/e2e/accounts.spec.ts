@@ -1,5 +1,6 @@
 import { ROLES, type Role } from '@seinework/contracts';
-import { DEMO_PASSWORD, demoEmail, expect, shot, signIn, signOut, test } from './support/fixtures';
+import { can } from '@seinework/contracts/permissions';
+import { DEMO_PASSWORD, demoEmail, expect, landingPage, shot, signIn, signOut, test } from './support/fixtures';
 import { asAdmin, linkFromOutbox } from './support/outbox';
 
 /**
@@ -15,19 +16,21 @@ test.describe('each role signs in and sees what it may do', () => {
       await signIn(page, role);
       const toolbar = page.getByRole('banner');
       await expect(toolbar.getByRole('button', { name: /^Account of / })).toContainText(ROLE_LABELS[role]);
-      await expect(toolbar.getByRole('link', { name: 'Webs' })).toBeVisible();
+      const websLink = toolbar.getByRole('link', { name: 'Webs' });
+      if (can(role, 'webs.read-published')) await expect(websLink).toBeVisible();
+      else await expect(websLink).toHaveCount(0);
       const adminLink = toolbar.getByRole('link', { name: 'Admin' });
       if (role === 'admin') await expect(adminLink).toBeVisible();
       else await expect(adminLink).toHaveCount(0);
       const upload = page.getByRole('link', { name: /upload a web/i });
       if (role === 'analyst' || role === 'admin') await expect(upload.first()).toBeVisible();
       else await expect(upload).toHaveCount(0);
-      await shot(page, `webs-as-${role}`);
+      await shot(page, `landing-as-${role}`);
 
       if (role !== 'admin') {
-        // the admin pages are refused even when typed in: back to the list of webs
+        // the admin pages are refused even when typed in: back to the role's own first page
         await page.goto('/admin/users');
-        await expect(page).toHaveURL(/\/webs(\?|$)/);
+        await expect(page).toHaveURL(landingPage(role));
       }
       await signOut(page);
       // signed out, the app's pages send the person back to sign in
@@ -152,4 +155,52 @@ test('a forgotten password is reset through the e-mailed link, then changed back
   await shot(page, 'account');
   await signOut(page);
   await signIn(page, 'stakeholder');
+});
+
+test('signing in and out works from the keyboard alone', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.keyboard.press('Tab');
+  await expect(page.getByRole('link', { name: 'Skip to the page' })).toBeFocused();
+  await page.getByLabel('E-mail address').focus();
+  await page.keyboard.type(demoEmail('council'));
+  await page.keyboard.press('Tab');
+  await expect(page.getByLabel('Password')).toBeFocused();
+  await page.keyboard.type(DEMO_PASSWORD);
+  await page.keyboard.press('Enter');
+  await expect(page).toHaveURL(landingPage('council'));
+
+  const account = page.getByRole('button', { name: /^Account of / });
+  await account.focus();
+  await page.keyboard.press('Enter');
+  await expect(page.getByRole('menuitem', { name: 'Sign out' })).toBeVisible();
+  await page.keyboard.press('ArrowUp');
+  await expect(page.getByRole('menuitem', { name: 'Sign out' })).toBeFocused();
+  await page.keyboard.press('Enter');
+  await expect(page).toHaveURL(/\/sign-in/);
+});
+
+test('at 200 % zoom the toolbar wraps and the pages do not spill sideways', async ({ browser, baseURL }) => {
+  // 640 × 400 CSS pixels at twice the density is a 1280 × 800 screen zoomed to 200 %
+  const zoomed = await browser.newContext({ baseURL, viewport: { width: 640, height: 400 }, deviceScaleFactor: 2 });
+  const page = await zoomed.newPage();
+  await page.goto('/sign-in');
+  await shot(page, 'zoom-200-sign-in');
+  await signIn(page, 'admin');
+  for (const [path, heading] of [
+    ['/admin/users', 'Users'],
+    ['/admin/invitations', 'Invitations'],
+    ['/admin/audit', 'Audit log'],
+    ['/admin/outbox', 'Outbox'],
+    ['/account', 'Your account'],
+  ]) {
+    await page.goto(path);
+    await expect(page.getByRole('heading', { name: heading, exact: true })).toBeVisible();
+    const toolbar = page.getByRole('banner');
+    await expect(toolbar.getByRole('link', { name: 'Admin' })).toBeInViewport();
+    await expect(toolbar.getByRole('button', { name: /^Account of / })).toBeInViewport();
+    const spill = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(spill, `${path} is wider than the window`).toBeLessThanOrEqual(0);
+    await shot(page, `zoom-200${path.replace(/\//g, '-')}`);
+  }
+  await zoomed.close();
 });

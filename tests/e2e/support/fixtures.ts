@@ -3,6 +3,7 @@ import { test as base, expect, type Page } from '@playwright/test';
 import { mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { Role } from '@seinework/contracts';
+import { can } from '@seinework/contracts/permissions';
 import { baseUrl } from './server-under-test';
 
 /**
@@ -19,13 +20,18 @@ export { expect };
 export const DEMO_PASSWORD = 'seinework-demo';
 export const demoEmail = (role: Role) => `${role}@demo.test`;
 
-/** Signs in through the sign-in page as the demo account of a role and waits for the list of webs. */
+/** Signs in through the sign-in page as the demo account of a role and waits for its first page. */
 export async function signIn(page: Page, role: Role, password = DEMO_PASSWORD): Promise<void> {
   await page.goto('/sign-in');
   await page.getByLabel('E-mail address').fill(demoEmail(role));
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/webs(\?|$)/);
+  await expect(page).toHaveURL(landingPage(role));
+}
+
+/** Where a role lands after sign-in: the list of webs, or the welcome page for a role that reads none. */
+export function landingPage(role: Role): RegExp {
+  return can(role, 'webs.read-published') ? /\/webs(\?|$)/ : /\/welcome$/;
 }
 
 /** Signs out through the account menu of the toolbar and waits for the sign-in page. */

@@ -13,7 +13,8 @@ export const routes: Routes = [
     canActivateChild: [signedInGuard],
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'webs' },
-      { path: 'webs', loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
+      { path: 'webs', canActivate: [allowedTo('webs.read-published')], loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
+      { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
       { path: '**', redirectTo: 'webs' },

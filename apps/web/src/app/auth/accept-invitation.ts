@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { personNameSchema } from '@seinework/contracts';
 import { AuthApi } from './auth-api';
-import { newPasswordValidators, passwordHint, passwordsMatch } from './new-password';
+import { newPasswordValidators, passwordHint, passwordsMatch, tooShort } from './new-password';
 import { problemMessage } from './problem-message';
 import { SessionStore } from './session-store';
 import { RoleLabelPipe } from './role-label';
@@ -31,6 +31,7 @@ export class AcceptInvitation {
 
   protected readonly invitation = rxResource({ params: () => this.token(), stream: ({ params }) => this.api.invitation(params) });
   protected readonly passwordHint = passwordHint;
+  protected readonly tooShort = tooShort;
   protected readonly form = inject(NonNullableFormBuilder).group(
     {
       name: ['', [Validators.required, Validators.maxLength(120)]],

@@ -9,6 +9,7 @@ export const newPasswordValidators: ValidatorFn[] = [
 ];
 
 export const passwordHint = `At least ${MIN_PASSWORD_LENGTH} characters. A short sentence is easy to remember.`;
+export const tooShort = `Use at least ${MIN_PASSWORD_LENGTH} characters.`;
 
 /** Group validator: `confirm` must repeat `password`; the error sits on the confirm field so it shows there. */
 export const passwordsMatch: ValidatorFn = (group: AbstractControl): ValidationErrors | null => {

@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AuthApi } from './auth-api';
-import { newPasswordValidators, passwordHint, passwordsMatch } from './new-password';
+import { newPasswordValidators, passwordHint, passwordsMatch, tooShort } from './new-password';
 import { problemMessage } from './problem-message';
 
 /** `/reset-password/:token`: the link from the reset message; choose a new password. */
@@ -23,6 +23,7 @@ export class ResetPassword {
 
   private readonly api = inject(AuthApi);
   protected readonly passwordHint = passwordHint;
+  protected readonly tooShort = tooShort;
   protected readonly form = inject(NonNullableFormBuilder).group(
     { password: ['', newPasswordValidators], confirm: ['', Validators.required] },
     { validators: passwordsMatch },

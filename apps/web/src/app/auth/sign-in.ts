@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, ElementRef, inject, input, viewChild } from '@angular/core';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -21,6 +21,8 @@ export class SignIn {
 
   protected readonly session = inject(SessionStore);
   private readonly router = inject(Router);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
+  private readonly passwordInput = viewChild.required<ElementRef<HTMLInputElement>>('password');
   protected readonly form = inject(NonNullableFormBuilder).group({
     email: ['', [Validators.required, Validators.email]],
     password: ['', Validators.required],
@@ -35,7 +37,9 @@ export class SignIn {
     if (await this.session.signIn(email.trim(), password)) {
       await this.router.navigateByUrl(safeReturnTo(this.returnTo()));
     } else {
-      this.form.controls.password.reset();
+      // a fresh try: empty password, no "required" shouting at it, the cursor back in it
+      this.formDirective().resetForm({ email, password: '' });
+      this.passwordInput().nativeElement.focus();
     }
   }
 }

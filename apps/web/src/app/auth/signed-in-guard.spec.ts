@@ -25,6 +25,7 @@ describe('signedInGuard', () => {
           { path: 'sign-in', component: Page },
           { path: 'webs', component: Page, canActivate: [signedInGuard] },
           { path: 'admin', component: Page, canActivate: [allowedTo('users.manage')] },
+          { path: 'welcome', component: Page, canActivate: [signedInGuard] },
         ]),
       ],
     });
@@ -51,6 +52,10 @@ describe('signedInGuard', () => {
 
   it('keeps a role away from pages for an action it may not take', async () => {
     await expect(navigate('/admin', council)).resolves.toBe('/webs');
+  });
+
+  it('sends a role that reads no webs to the welcome page, not to a list it would be refused', async () => {
+    await expect(navigate('/admin', { ...council, role: 'stakeholder' })).resolves.toBe('/welcome');
   });
 
   it('lets an admin onto the admin pages', async () => {

@@ -12,15 +12,20 @@ export const signedInGuard: CanActivateFn = async (_route, state) => {
   return session.user() ? true : signInFirst(router, state.url);
 };
 
-/** Pages for one action (the admin pages): others are sent to the list of webs. */
+/** Pages for one action (the admin pages, the webs): others are sent to their own landing page. */
 export function allowedTo(action: Action): CanActivateFn {
   return async (_route, state) => {
     const session = inject(SessionStore);
     const router = inject(Router);
     await session.ensureChecked();
     if (!session.user()) return signInFirst(router, state.url);
-    return session.can(action) ? true : router.createUrlTree(['/webs']);
+    return session.can(action) ? true : router.createUrlTree([landingPage(session.can('webs.read-published'))]);
   };
+}
+
+/** The first page of a role: the list of webs, or the welcome page for a role that reads none. */
+export function landingPage(readsWebs: boolean): string {
+  return readsWebs ? '/webs' : '/welcome';
 }
 
 export function signInFirst(router: Router, returnTo: string): UrlTree {

@@ -3,6 +3,7 @@ import { DatePipe } from '@angular/common';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatTableModule } from '@angular/material/table';
 import { ListState } from '../list-state';
+import { actionInWords, subjectInWords } from './audit-wording';
 import { AuditStore } from './audit-store';
 
 /** `/admin/audit`: the audit log, one row per change. */
@@ -17,6 +18,8 @@ import { AuditStore } from './audit-store';
 export class AuditPage implements OnInit {
   protected readonly store = inject(AuditStore);
   protected readonly columns = ['at', 'actor', 'action', 'subject', 'detail'];
+  protected readonly actionInWords = actionInWords;
+  protected readonly subjectInWords = subjectInWords;
 
   ngOnInit(): void {
     void this.store.showPage(0, 50);
