@@ -7,3 +7,4 @@ export * from './accounts';
 export * from './webs-api';
 export * from './api-limits';
 export * from './duplicate-keys';
+export * from './options-api';

@@ -25,14 +25,24 @@ export const ACTIONS = [
   'audit.read',
   /** Read the outbox of sent e-mail. */
   'outbox.read',
+  /** Read every harvest option and run. */
+  'options.read-all',
+  /** Create, edit, duplicate and delete harvest options; start and cancel runs. */
+  'options.edit',
+  /** Share an option for council review (and later public comment); withdraw a share. */
+  'options.share',
+  /** Read options shared for council review, their runs and the baselines they stand on; compare them. */
+  'options.read-shared',
+  /** Record a preference among compared options (on an option shared with the member). */
+  'preferences.record',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
 const PERMISSIONS: Readonly<Record<Role, readonly Action[]>> = {
   admin: ACTIONS,
-  analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish'],
-  council: ['webs.read-published'],
-  staff: ['webs.read-published'],
+  analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish', 'options.read-all', 'options.edit', 'options.share'],
+  council: ['webs.read-published', 'options.read-shared', 'preferences.record'],
+  staff: ['webs.read-published', 'options.read-shared'],
   stakeholder: [],
 };
 
