@@ -39,9 +39,11 @@ export function authRoutes(options: AuthRouteOptions): Router {
       await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject: `email:${body.email}`, detail: 'No account with this address' });
       throw new RequestError(401, WRONG);
     }
-    if ((await countAttempt(db, user.id, limits, options.now())) > limits.perAccount) {
+    const now = options.now();
+    const { attempts, windowEndsAt } = await countAttempt(db, user.id, limits, now);
+    if (attempts > limits.perAccount) {
       await recordAudit(db, { actorId: null, action: 'auth.sign-in-refused', subject: `user:${user.id}`, detail: 'Too many failed sign-ins for this account' });
-      throw tooMany(limits);
+      throw tooMany(limits, (windowEndsAt.getTime() - now.getTime()) / 1000);
     }
     const refusal = !(await verifyPassword(user.passwordHash, body.password))
       ? 'Wrong password'

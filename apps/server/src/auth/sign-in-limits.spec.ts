@@ -27,7 +27,10 @@ describe('sign-in rate limits', () => {
     let now = new Date('2026-03-01T09:00:00Z');
     t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 100, perAccount: 3 }, now: () => now });
     for (let n = 0; n < 3; n++) expect((await signIn(demoEmail('analyst'), 'wrong password')).status).toBe(401);
-    expect((await signIn(demoEmail('analyst'), DEMO_PASSWORD)).status).toBe(429);
+    now = new Date('2026-03-01T09:05:00Z');
+    const limited = await signIn(demoEmail('analyst'), DEMO_PASSWORD);
+    expect(limited.status).toBe(429);
+    expect(limited.headers['retry-after']).toBe(String(10 * 60));
     // another account from the same address is not held back
     expect((await signIn(demoEmail('council'), DEMO_PASSWORD)).status).toBe(200);
     now = new Date('2026-03-01T09:16:00Z');

@@ -29,8 +29,9 @@ export function addressLimiter(limits: SignInLimits): RateLimitRequestHandler {
   });
 }
 
-export function tooMany(limits: SignInLimits): RequestError {
-  return new RequestError(429, `Too many failed sign-in attempts: wait ${limits.windowMinutes} minutes and try again, or reset your password`);
+export function tooMany(limits: SignInLimits, retryAfterSeconds?: number): RequestError {
+  const headers: Record<string, string> = retryAfterSeconds === undefined ? {} : { 'Retry-After': String(Math.max(1, Math.ceil(retryAfterSeconds))) };
+  return new RequestError(429, `Too many failed sign-in attempts: wait ${limits.windowMinutes} minutes and try again, or reset your password`, [], headers);
 }
 
 /**
@@ -38,7 +39,7 @@ export function tooMany(limits: SignInLimits): RequestError {
  * how many attempts the window now holds: concurrent guesses cannot all slip in under the limit.
  * A window that ended starts again at 1; a successful sign-in clears the count.
  */
-export async function countAttempt(db: Db, userId: string, limits: SignInLimits, now: Date): Promise<number> {
+export async function countAttempt(db: Db, userId: string, limits: SignInLimits, now: Date): Promise<{ attempts: number; windowEndsAt: Date }> {
   const windowStart = new Date(now.getTime() - limits.windowMinutes * 60_000);
   const expired = sql`(${users.failedSignInsSince} is null or ${users.failedSignInsSince} <= ${windowStart.toISOString()}::timestamptz)`;
   const [row] = await db
@@ -48,8 +49,8 @@ export async function countAttempt(db: Db, userId: string, limits: SignInLimits,
       failedSignInsSince: sql`case when ${expired} then ${now.toISOString()}::timestamptz else ${users.failedSignInsSince} end`,
     })
     .where(eq(users.id, userId))
-    .returning({ attempts: users.failedSignIns });
-  return row?.attempts ?? 0;
+    .returning({ attempts: users.failedSignIns, since: users.failedSignInsSince });
+  return { attempts: row?.attempts ?? 0, windowEndsAt: new Date((row?.since ?? now).getTime() + limits.windowMinutes * 60_000) };
 }
 
 export async function clearFailures(db: Db, userId: string): Promise<void> {
