@@ -162,6 +162,32 @@ test('clone a published baseline into a new web and edit a flow', async ({ page 
   expect(problems).toEqual([]);
 });
 
+test('readable at 200 % zoom: no page scrolls sideways', async ({ page }) => {
+  // 640 × 400 CSS pixels at twice the density is how a 1280 × 800 screen shows the app at 200 %
+  await page.setViewportSize({ width: 640, height: 400 });
+  const fitsTheWidth = () => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth);
+  await signIn(page, 'analyst');
+  await expect(page.getByRole('table', { name: 'Webs' })).toContainText(demo.name);
+  expect(await fitsTheWidth()).toBe(true);
+  await shot(page, 'zoom-200-webs-list');
+
+  await page.getByRole('link', { name: demo.name }).click();
+  await expect(page.getByRole('region', { name: 'Headline indicators' })).toBeVisible();
+  await expect(page.locator('sw-web-diagram svg[role=img]')).toBeVisible();
+  expect(await fitsTheWidth()).toBe(true);
+  await shot(page, 'zoom-200-web-page');
+
+  await page.getByRole('link', { name: 'Edit as a new draft' }).click();
+  await expect(page.getByRole('region', { name: 'Balance of each compartment' })).toBeVisible();
+  expect(await fitsTheWidth()).toBe(true);
+  await shot(page, 'zoom-200-editor');
+
+  await page.goto('/webs/upload');
+  await expect(page.getByRole('heading', { level: 1, name: 'Upload a web' })).toBeVisible();
+  expect(await fitsTheWidth()).toBe(true);
+  await shot(page, 'zoom-200-upload');
+});
+
 test('an address inside the app is answered with the app itself', async ({ request }) => {
   const response = await request.get('/webs/some-web/versions/some-version/edit');
   expect(response.status()).toBe(200);

@@ -57,7 +57,7 @@ const KIND_LABEL = { flow: 'Flow', import: 'Import', export: 'Export', respirati
   styles: `
     .changes { border: 1px solid var(--mat-sys-primary); border-radius: 12px; padding: 4px 16px 12px; margin-top: 12px; }
     h3 { font: var(--mat-sys-title-medium); margin: 12px 0 4px; }
-    .table-scroll { overflow-x: auto; max-height: 360px; }
+    .table-scroll { position: relative; overflow-x: auto; max-height: 360px; }
     table { border-collapse: collapse; width: 100%; font-size: 0.875rem; }
     th, td { padding: 4px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); text-align: left; }
     thead th { font-weight: 500; color: var(--mat-sys-on-surface-variant); position: sticky; top: 0; background: var(--mat-sys-surface); }

@@ -56,7 +56,7 @@ import type { CompartmentBalance } from './imbalance';
     .summary { margin: 0 0 8px; }
     .ok { color: #2e6b30; font-weight: 500; }
     .bad { color: var(--mat-sys-error); font-weight: 500; }
-    .table-scroll { overflow-x: auto; }
+    .table-scroll { position: relative; overflow-x: auto; }
     table { border-collapse: collapse; width: 100%; font-size: 0.875rem; }
     th, td { padding: 4px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); text-align: left; font-weight: normal; }
     thead th { font-weight: 500; color: var(--mat-sys-on-surface-variant); }

@@ -40,7 +40,7 @@ export interface TrophicPosition {
     </div>
   `,
   styles: `
-    .table-scroll { overflow-x: auto; }
+    .table-scroll { position: relative; overflow-x: auto; }
     .positions { width: 100%; }
     .number { text-align: right; font-variant-numeric: tabular-nums; }
   `,

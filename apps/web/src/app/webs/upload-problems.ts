@@ -40,7 +40,7 @@ const TABLE_ORDER = ['file', 'web', 'compartments', 'flows', 'imports', 'exports
   styles: `
     .problems { border: 1px solid var(--mat-sys-error); border-radius: 12px; padding: 8px 16px 16px; margin: 24px 0; }
     h2 { font: var(--mat-sys-title-large); color: var(--mat-sys-error); margin: 8px 0; }
-    .table-scroll { overflow-x: auto; }
+    .table-scroll { position: relative; overflow-x: auto; }
     table { width: 100%; }
     .number { text-align: right; font-variant-numeric: tabular-nums; width: 4em; }
     .problem { overflow-wrap: anywhere; }
