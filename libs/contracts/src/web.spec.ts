@@ -92,6 +92,20 @@ describe('WEB.json text fields', () => {
     expect(problems((w) => (w.name = huge))).toEqual(['name: name must be at most 200 characters']);
   });
 
+  it('takes __proto__ as an id like any other, and refuses it as a key, without touching Object.prototype', () => {
+    const before = Object.getOwnPropertyNames(Object.prototype).join();
+    const w = web();
+    w.compartments[1].id = '__proto__';
+    w.flows[0].to = '__proto__';
+    w.exports[0].from = '__proto__';
+    w.respiration[1].from = '__proto__';
+    expect(webSchema.parse(w).compartments[1].id).toBe('__proto__');
+    const text = JSON.stringify(web()).replace('"kind":"producer"', '"kind":"producer","__proto__":{"polluted":true}');
+    expect(problemsOfJson(text)).toEqual(['compartments[0]: Unrecognized key: "__proto__"']);
+    expect(({} as Record<string, unknown>)['polluted']).toBeUndefined();
+    expect(Object.getOwnPropertyNames(Object.prototype).join()).toBe(before);
+  });
+
   it('trims ids and fleets and refuses what is left empty', () => {
     const w = web();
     w.compartments[0].id = '  a ';
