@@ -50,15 +50,16 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   app.use(securityHeaders(settings.publicOrigin ?? 'http://127.0.0.1:4300'));
   // the origin check comes before the body is read: a foreign origin is refused whatever it sends
   app.use('/api', originCheck(settings.publicOrigin ? [settings.publicOrigin] : undefined));
-  app.use(jsonBody());
+  // the engine's routes hand their bodies, unparsed, to engine workers; every other route reads JSON here
   const engine = settings.engine ?? createEngineJobs({ drawPool: settings.drawPool });
+  app.use('/api/analyses', analysisRoutes(engine));
+  app.use('/api/balancing', balancingRoutes(engine));
+  app.use('/api/options', optionRoutes(engine));
+  app.use(jsonBody());
   app.get('/api/health', (_request, response) => {
     response.json({ status: 'ok' });
   });
   app.use('/api/demo', await demoRoutes(settings.demoWebPath));
-  app.use('/api/analyses', analysisRoutes(engine));
-  app.use('/api/balancing', balancingRoutes(engine));
-  app.use('/api/options', optionRoutes(engine));
   if (settings.database) {
     const publicOrigin = settings.publicOrigin ?? 'http://127.0.0.1:4300';
     // the session reader comes first: every stateful router below sees the signed-in person

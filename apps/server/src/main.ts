@@ -1,6 +1,7 @@
 import { resolve } from 'node:path';
 import { createDrawPool } from '@seinework/draw-pool';
 import { createApp } from './app';
+import { createEngineJobs } from './engine/engine-jobs';
 import { readConfig } from './config';
 import { openDatabase } from './db/database';
 import { DataDirInUseError } from './db/data-dir-lock';
@@ -28,10 +29,12 @@ const mail = await startMail({ smtpUrl: config.smtpUrl, demoMode: config.demoMod
 console.log(mail.where);
 
 const drawPool = createDrawPool();
+const engine = createEngineJobs({ drawPool, keepAlive: true });
 const app = await createApp({
   demoWebPath: resolve(root, 'seeds/brannock-bay.json'),
   staticDir: resolve(root, 'dist/web/browser'),
   drawPool,
+  engine,
   database,
   publicOrigin: config.publicOrigin,
   demoMode: config.demoMode,
@@ -44,7 +47,7 @@ const server = app.listen(port, host, () => {
 // Stop cleanly: close the connections, then the draw workers and the database (which frees the data folder).
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
-    server.close(() => void Promise.all([drawPool.destroy(), mail.close().then(() => database.close())]));
+    server.close(() => void Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())]));
     server.closeAllConnections();
   });
 }

@@ -7,9 +7,21 @@ import { createWorkerPool, type WorkerPool } from './worker-pool';
  * CLI starts one per run. Each worker runs chunks with the same engine as in process.
  */
 
+/**
+ * A chunk whose web travels as JSON text: a server posts one string per chunk instead of copying
+ * a large web's object graph on the thread that answers requests.
+ */
+export interface SerialisedDrawJob extends Omit<DrawJob, 'web'> {
+  readonly webJson: string;
+}
+
+export type PoolDrawJob = DrawJob | SerialisedDrawJob;
+
 export interface DrawPool extends DrawRunner {
   /** The same workers, for one request: its chunks are dropped or stopped when `signal` aborts. */
   withSignal(signal: AbortSignal): DrawRunner;
+  /** One chunk given as text, dropped or stopped when `signal` aborts. */
+  runSerialised(job: SerialisedDrawJob, signal?: AbortSignal): Promise<DrawOutcome[]>;
   /** Chunks waiting for a worker now. */
   readonly queueSize: number;
   /** Chunks that ran to the end (not aborted, not refused). */
@@ -30,7 +42,7 @@ export interface DrawPoolSettings {
 export const DEFAULT_DRAW_QUEUE = 200;
 
 export function createDrawPool(workers?: number, settings: DrawPoolSettings = {}): DrawPool {
-  const pool: WorkerPool<DrawJob, DrawOutcome[]> = createWorkerPool(new URL('./draw-worker.ts', import.meta.url), {
+  const pool: WorkerPool<PoolDrawJob, DrawOutcome[]> = createWorkerPool(new URL('./draw-worker.ts', import.meta.url), {
     threads: workers,
     maxQueue: settings.maxQueue ?? DEFAULT_DRAW_QUEUE,
     keepAlive: settings.keepAlive,
@@ -39,6 +51,7 @@ export function createDrawPool(workers?: number, settings: DrawPoolSettings = {}
     workers: pool.threads,
     run: (job) => pool.run(job),
     withSignal: (signal) => ({ workers: pool.threads, run: (job) => pool.run(job, signal) }),
+    runSerialised: (job, signal) => pool.run(job, signal),
     get queueSize() {
       return pool.queueSize;
     },

@@ -1,10 +1,11 @@
 import { setMaxListeners } from 'node:events';
 import { API_TIME_BUDGET_MS, type ResponseRule, type TableSelection } from '@seinework/contracts';
-import { createDrawPool, createWorkerPool, isAbortError, type DrawPool } from '@seinework/draw-pool';
-import { optionUncertainty } from '@seinework/harvest-options';
+import { createDrawPool, createWorkerPool, isAbortError, type DrawPool, type SerialisedDrawJob } from '@seinework/draw-pool';
+import { summarise, type UncertaintySummary } from '@seinework/harvest-options';
 import type { BalancingMethod } from '@seinework/network-analysis';
+import { RequestError } from '../http/errors';
 import { EngineOverBudget, EngineRefusal } from './engine-errors';
-import type { EngineAnswer, EngineTask } from './engine-task';
+import type { CheckedDraws, EngineAnswer, EngineInput, EngineTask, RequestText } from './engine-task';
 
 /**
  * The engine off the server's thread: every analysis, balancing, option run and sensitivity table
@@ -30,6 +31,8 @@ export interface OptionJobOptions extends TableJobOptions {
   readonly onProgress?: (done: number, total: number) => void;
 }
 
+export type RequestKind = EngineTask['kind'];
+
 export interface EngineJobs {
   /** The analysis document of a WEB.json value. */
   analyzeOffThread(web: unknown, options?: TableJobOptions): Promise<Buffer>;
@@ -39,6 +42,12 @@ export interface EngineJobs {
   runOptionOffThread(web: unknown, option: unknown, options?: OptionJobOptions): Promise<Buffer>;
   /** The harvest-sensitivity table. */
   sensitivityOffThread(web: unknown, response: ResponseRule, options?: JobOptions): Promise<Buffer>;
+  /**
+   * A stateless API request as it came (its raw JSON body), parsed and checked on the worker: a
+   * bad body or shape is a 400 RequestError, a web over the API limits a 413. Bodies: the web
+   * (analyze), `{ web, method? }` (balance), `{ web, option }` (run-option), `{ web, response? }` (sensitivity).
+   */
+  requestOffThread(kind: RequestKind, body: RequestText, options?: OptionJobOptions): Promise<Buffer>;
   /** Jobs started and not yet settled. */
   readonly pending: number;
   /** Stops the engine workers (and the draw pool, when the jobs started their own). */
@@ -93,29 +102,52 @@ export function createEngineJobs(settings: EngineJobsSettings = {}): EngineJobs 
 
   async function engine(task: EngineTask, signal: AbortSignal): Promise<EngineAnswer & { ok: true }> {
     const result = await workers.run(task, signal);
-    if (!result.ok) throw new EngineRefusal(result.kind, result.problems, result.input);
-    return result;
+    if (result.ok) return result;
+    if (result.kind === 'request') throw new RequestError(result.status, result.message, result.details);
+    throw new EngineRefusal(result.kind, result.problems, result.input);
+  }
+
+  /** The draws of an option run, in chunks on the draw pool; summarised in draw order, as optionUncertainty does. */
+  async function draws(checked: CheckedDraws, signal: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<UncertaintySummary> {
+    const { webJson, option, settings: uncertainty } = checked;
+    // about eight chunks per worker, at most 100 draws each (the chunking of optionUncertainty)
+    const chunkSize = Math.max(1, Math.min(100, Math.ceil(uncertainty.draws / (8 * drawPool.workers))));
+    const chunks: SerialisedDrawJob[] = [];
+    for (let start = 0; start < uncertainty.draws; start += chunkSize) {
+      chunks.push({ webJson, option, cv: uncertainty.cv, seed: uncertainty.seed, start, end: Math.min(uncertainty.draws, start + chunkSize) });
+    }
+    let done = 0;
+    const outcomes = await Promise.all(
+      chunks.map(async (chunk) => {
+        const outcome = await drawPool.runSerialised(chunk, signal);
+        done += outcome.length;
+        onProgress?.(done, uncertainty.draws);
+        return outcome;
+      }),
+    );
+    return summarise(outcomes.flat(), uncertainty);
   }
 
   const bytes = (json: Uint8Array) => Buffer.from(json.buffer, json.byteOffset, json.byteLength);
 
+  function answer(kind: RequestKind, input: EngineInput, options: OptionJobOptions): Promise<Buffer> {
+    const tables = options.tables ?? 'summary';
+    return job(options.signal, async (signal) => {
+      const result = await engine(kind === 'analyze' || kind === 'run-option' ? { kind, input, tables } : { kind, input }, signal);
+      if (!result.draws) return bytes(result.json);
+      const uncertainty = await draws(result.draws, signal, options.onProgress);
+      // the run's document, its closing brace replaced by the uncertainty member
+      const document = bytes(result.json);
+      return Buffer.concat([document.subarray(0, document.lastIndexOf('}')), Buffer.from(`,"uncertainty":${JSON.stringify(uncertainty)}}`)]);
+    });
+  }
+
   return {
-    analyzeOffThread: (web, options = {}) => job(options.signal, async (signal) => bytes((await engine({ kind: 'analyze', web, tables: options.tables ?? 'summary' }, signal)).json)),
-    balanceOffThread: (web, method, options = {}) => job(options.signal, async (signal) => bytes((await engine({ kind: 'balance', web, method }, signal)).json)),
-    sensitivityOffThread: (web, response, options = {}) => job(options.signal, async (signal) => bytes((await engine({ kind: 'sensitivity', web, response }, signal)).json)),
-    runOptionOffThread: (web, option, options = {}) =>
-      job(options.signal, async (signal) => {
-        const run = await engine({ kind: 'run-option', web, option, tables: options.tables ?? 'summary' }, signal);
-        const checked = run.checked;
-        if (!checked?.option.uncertainty) return bytes(run.json);
-        const uncertainty = await optionUncertainty(checked.web, checked.option, checked.option.uncertainty, {
-          pool: drawPool.withSignal(signal),
-          onProgress: options.onProgress,
-        });
-        // the run's document, its closing brace replaced by the uncertainty member
-        const document = bytes(run.json);
-        return Buffer.concat([document.subarray(0, document.lastIndexOf('}')), Buffer.from(`,"uncertainty":${JSON.stringify(uncertainty)}}`)]);
-      }),
+    analyzeOffThread: (web, options = {}) => answer('analyze', { value: web }, options),
+    balanceOffThread: (web, method, options = {}) => answer('balance', { value: { web, method } }, options),
+    runOptionOffThread: (web, option, options = {}) => answer('run-option', { value: { web, option } }, options),
+    sensitivityOffThread: (web, response, options = {}) => answer('sensitivity', { value: { web, response } }, options),
+    requestOffThread: (kind, body, options = {}) => answer(kind, { json: body.text }, options),
     get pending() {
       return pending;
     },

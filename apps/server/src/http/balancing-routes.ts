@@ -1,24 +1,18 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { BALANCING_METHODS } from '@seinework/network-analysis';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { clientSignal, sendJsonText } from './client-signal';
-import { parsedBody } from './request-body';
-import { requireWebWithinLimits } from './size-limits';
+import { bodyText } from './json-body';
+import { requestText } from './request-body';
 
-/** The offer to balance (METHODS.md §0 and §7): the web and the method in, the balanced web out. */
-
-const body = z.strictObject({
-  web: z.unknown(),
-  method: z.enum(BALANCING_METHODS, { error: `method must be one of ${BALANCING_METHODS.join(', ')}` }).default('least-change'),
-});
-
+/**
+ * The offer to balance (METHODS.md §0 and §7): `{ web, method? }` in (least change by default),
+ * `{ method, wasBalanced, web }` out; read, checked and balanced on an engine worker.
+ */
 export function balancingRoutes(engine: EngineJobs): Router {
   const router = Router();
+  router.use(bodyText());
   router.post('/', async (request, response) => {
-    const { web, method } = parsedBody(request, body);
-    requireWebWithinLimits(web, 'web.');
-    sendJsonText(response, await engine.balanceOffThread(web, method, { signal: clientSignal(request, response) }));
+    sendJsonText(response, await engine.requestOffThread('balance', requestText(request), { signal: clientSignal(request, response) }));
   });
   return router;
 }

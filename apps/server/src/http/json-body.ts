@@ -1,6 +1,6 @@
 import express, { type Request, type RequestHandler } from 'express';
-import { findDuplicateKey } from '@seinework/contracts';
 import { RequestError } from './errors';
+import { parseJsonText } from './request-body';
 
 /**
  * Reads JSON request bodies, every failure a 4xx naming it: a body that is not JSON, or repeats a
@@ -14,26 +14,35 @@ export const BODY_LIMIT_BYTES = 5 * 1024 * 1024;
 const JSON_TYPES = ['application/json', '+json'];
 
 export function jsonBody(limitBytes = BODY_LIMIT_BYTES): RequestHandler {
-  const readText = express.text({ type: () => true, limit: limitBytes, defaultCharset: 'utf-8' });
-  return (request, response, next) => {
-    if (!hasBody(request) || request.is('multipart/form-data')) return next();
-    if (!request.is(JSON_TYPES)) {
-      return next(new RequestError(415, `Send the request body as JSON (Content-Type: application/json), not ${request.get('content-type') ?? 'without a type'}`));
-    }
+  const readText = bodyText(limitBytes);
+  return (request, response, next) =>
     readText(request, response, (error?: unknown) => {
-      if (error) return next(readFailure(error, limitBytes, request));
-      const text = typeof request.body === 'string' ? request.body : '';
+      if (error) return next(error);
+      const text: unknown = request.body;
+      if (typeof text !== 'string') return next();
       request.body = undefined;
       if (text.trim() === '') return next();
       try {
-        request.body = JSON.parse(text);
+        request.body = parseJsonText(text);
       } catch (parseError) {
-        return next(new RequestError(400, 'The request body is not valid JSON', [(parseError as Error).message]));
+        return next(parseError);
       }
-      const duplicate = findDuplicateKey(text);
-      if (duplicate) return next(new RequestError(400, 'The request body gives a key twice', [duplicate]));
       next();
     });
+}
+
+/**
+ * Reads a JSON body as text into `request.body` (a string; undefined without a body), with every
+ * check of jsonBody() but the parsing: for routes that hand the text to an engine worker to parse.
+ */
+export function bodyText(limitBytes = BODY_LIMIT_BYTES): RequestHandler {
+  const readText = express.text({ type: () => true, limit: limitBytes, defaultCharset: 'utf-8' });
+  return (request, response, next) => {
+    if (typeof request.body === 'string' || !hasBody(request) || request.is('multipart/form-data')) return next();
+    if (!request.is(JSON_TYPES)) {
+      return next(new RequestError(415, `Send the request body as JSON (Content-Type: application/json), not ${request.get('content-type') ?? 'without a type'}`));
+    }
+    readText(request, response, (error?: unknown) => next(error ? readFailure(error, limitBytes, request) : undefined));
   };
 }
 

@@ -1,35 +1,30 @@
 import { Router, type Response } from 'express';
-import { z } from 'zod';
-import { responseRuleSchema } from '@seinework/contracts';
 import { EngineOverBudget } from '../engine/engine-errors';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { clientSignal, sendJsonText } from './client-signal';
-import { parsedBody } from './request-body';
-import { requireOptionWithinLimits, requireWebWithinLimits } from './size-limits';
+import { bodyText } from './json-body';
+import { requestText } from './request-body';
 import { tableSelection } from './table-selection';
 
 /**
- * Stateless harvest-option runs (METHODS.md §8): the web and the option travel in the body, the
- * engine checks them and does the math on its workers. Saved options and baselines come with the database.
+ * Stateless harvest-option runs (METHODS.md §8): `{ web, option }` or `{ web, response? }` travel
+ * in the body as text to an engine worker, which parses and checks them and does the math; draws
+ * run on the draw pool. Saved options and baselines come with the database.
  */
 
 /** Asked for with `Accept: application/x-ndjson`: progress lines while the draws run. */
 const NDJSON = 'application/x-ndjson';
 
-const runBody = z.strictObject({ web: z.unknown(), option: z.unknown() });
-const sensitivityBody = z.strictObject({ web: z.unknown(), response: responseRuleSchema.default('bottom-up') });
-
 export function optionRoutes(engine: EngineJobs): Router {
   const router = Router();
+  router.use(bodyText());
 
   router.post('/run', async (request, response) => {
-    const body = parsedBody(request, runBody);
-    requireWebWithinLimits(body.web, 'web.');
-    requireOptionWithinLimits(body.option);
+    const body = requestText(request);
     const tables = tableSelection(request);
     const signal = clientSignal(request, response);
     if (!request.get('accept')?.includes(NDJSON)) {
-      sendJsonText(response, await engine.runOptionOffThread(body.web, body.option, { tables, signal }));
+      sendJsonText(response, await engine.requestOffThread('run-option', body, { tables, signal }));
       return;
     }
     // Progress for a long run: one JSON line per finished chunk of draws, then the result. The
@@ -37,7 +32,7 @@ export function optionRoutes(engine: EngineJobs): Router {
     // it is an ordinary 4xx; after it, an error line ends the stream.
     const stream = new LineStream(response);
     try {
-      const result = await engine.runOptionOffThread(body.web, body.option, {
+      const result = await engine.requestOffThread('run-option', body, {
         tables,
         signal,
         onProgress: (done, total) => stream.line(JSON.stringify({ progress: { done, total } })),
@@ -56,9 +51,7 @@ export function optionRoutes(engine: EngineJobs): Router {
   });
 
   router.post('/sensitivity', async (request, response) => {
-    const body = parsedBody(request, sensitivityBody);
-    requireWebWithinLimits(body.web, 'web.');
-    sendJsonText(response, await engine.sensitivityOffThread(body.web, body.response, { signal: clientSignal(request, response) }));
+    sendJsonText(response, await engine.requestOffThread('sensitivity', requestText(request), { signal: clientSignal(request, response) }));
   });
 
   return router;
