@@ -163,6 +163,7 @@ test('signing in and out works from the keyboard alone', async ({ page }) => {
   await expect(page.getByRole('link', { name: 'Skip to the page' })).toBeFocused();
   await page.getByLabel('E-mail address').focus();
   await page.keyboard.type(demoEmail('council'));
+  await shot(page, 'keyboard-focus-sign-in');
   await page.keyboard.press('Tab');
   await expect(page.getByLabel('Password')).toBeFocused();
   await page.keyboard.type(DEMO_PASSWORD);
@@ -171,10 +172,12 @@ test('signing in and out works from the keyboard alone', async ({ page }) => {
 
   const account = page.getByRole('button', { name: /^Account of / });
   await account.focus();
+  await shot(page, 'keyboard-focus-toolbar');
   await page.keyboard.press('Enter');
   await expect(page.getByRole('menuitem', { name: 'Sign out' })).toBeVisible();
   await page.keyboard.press('ArrowUp');
   await expect(page.getByRole('menuitem', { name: 'Sign out' })).toBeFocused();
+  await shot(page, 'keyboard-focus-account-menu');
   await page.keyboard.press('Enter');
   await expect(page).toHaveURL(/\/sign-in/);
 });
