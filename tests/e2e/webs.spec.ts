@@ -152,12 +152,25 @@ test('clone a published baseline into a new web and edit a flow', async ({ page 
   await expect(balance.getByRole('row', { name: new RegExp(names.get(firstFlow.to)!) })).toContainText('20');
   await shot(page, 'editor-clone-edited');
 
+  // leaving with unsaved edits asks first; staying keeps them
+  const asked = new Promise<string>((answered) =>
+    page.once('dialog', async (dialog) => {
+      answered(dialog.message());
+      await dialog.dismiss();
+    }),
+  );
+  await page.getByRole('navigation', { name: 'Where you are' }).getByRole('link', { name: 'Webs' }).click();
+  expect(await asked).toContain('not saved');
+  await expect(value).toHaveValue(String(firstFlow.value + 20));
+
   await page.getByLabel('Note for the new version').fill('More grazing in wetter years');
   await page.getByRole('button', { name: 'Save as a new draft' }).click();
   await expect(page.getByText('Saved as a new draft.')).toBeVisible();
   await page.getByRole('link', { name: 'Brannock Bay, wetter years' }).click();
   await expect(versions.getByRole('row')).toHaveCount(3);
   await expect(versions.getByRole('row').filter({ hasText: 'More grazing in wetter years' })).toContainText('version 1');
+  // the edited draft is out of balance, so it has no indicators yet, and says so
+  await expect(page.getByRole('alert')).toContainText('No indicators for this version yet');
   await shot(page, 'web-page-clone-edited');
   expect(problems).toEqual([]);
 });
