@@ -9,6 +9,7 @@ import { users, webs, webVersions } from '../db/schema';
 import { RequestError } from '../http/errors';
 import { requireWebWithinLimits } from '../http/size-limits';
 import { insertWebRows, readWeb } from './version-rows';
+import { VersionWebCache } from './version-web-cache';
 import { readsDrafts, visibleVersion, visibleWeb } from './visibility';
 
 /**
@@ -41,7 +42,14 @@ const creator = alias(users, 'creator');
 const publisher = alias(users, 'publisher');
 
 export class WebService {
+  private readonly cache = new VersionWebCache();
+
   constructor(private readonly db: Db) {}
+
+  /** A version's web (callers have checked that the person may see it). */
+  private web(versionId: string): Promise<Web> {
+    return this.cache.get(versionId, () => readWeb(this.db, versionId));
+  }
 
   async list(user: CurrentUser, query: WebListQuery): Promise<Page<WebSummary>> {
     const conditions: (SQL | undefined)[] = [visibleWeb(user)];
@@ -55,17 +63,17 @@ export class WebService {
     }
     const where = and(...conditions);
     const order = query.direction === 'asc' ? asc : desc;
-    const [rows, [{ total }]] = await Promise.all([
-      this.db
-        .select()
-        .from(webs)
-        .where(where)
-        // People expect "alpha" before "Bravo": text sorts ignore case.
-        .orderBy(order(query.sort === 'updatedAt' ? webs.updatedAt : sql`lower(${webs[query.sort]})`), asc(webs.id))
-        .limit(query.pageSize)
-        .offset((query.page - 1) * query.pageSize),
-      this.db.select({ total: count() }).from(webs).where(where),
-    ]);
+    // The total comes with the page (one query); only a page past the end asks for it separately.
+    const page = await this.db
+      .select({ web: webs, total: sql<number>`cast(count(*) over () as integer)` })
+      .from(webs)
+      .where(where)
+      // People expect "alpha" before "Bravo": text sorts ignore case.
+      .orderBy(order(query.sort === 'updatedAt' ? webs.updatedAt : sql`lower(${webs[query.sort]})`), asc(webs.id))
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize);
+    const rows = page.map((p) => p.web);
+    const total = page[0]?.total ?? (await this.db.select({ total: count() }).from(webs).where(where))[0].total;
     const versions = rows.length === 0 ? [] : await this.versionRows(and(inArray(webVersions.webId, rows.map((w) => w.id)), visibleVersion(user)));
     const items = rows.map((web): WebSummary => {
       const own = versions.filter((v) => v.webId === web.id);
@@ -114,14 +122,14 @@ export class WebService {
 
   async version(user: CurrentUser, webId: string, versionId: string): Promise<VersionDetail> {
     const summary = await this.visibleVersion(user, webId, versionId);
-    return { ...summary, webId, web: await readWeb(this.db, versionId) };
+    return { ...summary, webId, web: await this.web(versionId) };
   }
 
   /** The web's place and period with a version's web, for the exports. */
   async versionForExport(user: CurrentUser, webId: string, versionId: string): Promise<{ web: Web; place: string; period: string; number: number }> {
     const summary = await this.visibleVersion(user, webId, versionId);
     const row = await this.visibleWebRow(user, webId);
-    return { web: await readWeb(this.db, versionId), place: row.place, period: row.period, number: summary.number };
+    return { web: await this.web(versionId), place: row.place, period: row.period, number: summary.number };
   }
 
   async newVersion(user: CurrentUser, webId: string, input: { web: Web; note: string; basedOn: string | null }): Promise<Created> {
@@ -144,7 +152,7 @@ export class WebService {
 
   async publish(user: CurrentUser, webId: string, versionId: string): Promise<VersionSummary> {
     await this.visibleVersion(user, webId, versionId);
-    const web = await readWeb(this.db, versionId);
+    const web = await this.web(versionId);
     const unbalanced = imbalances(createNetwork(web));
     if (unbalanced.length > 0) {
       throw new RequestError(
