@@ -39,6 +39,13 @@ test('bring in a baseline: upload with an error, fix it, balance, save and publi
   await page.getByLabel('Place').fill('Heronsgate, north shore');
   await page.getByLabel('Period').fill('2021–2023');
   await page.getByLabel('Note for this version').fill('Survey tables as received');
+  // the filled-in example of the layout is a published web's own export, in each format
+  for (const format of ['Workbook (XLSX)', 'CSV', 'WEB.json']) {
+    const href = await page.getByRole('link', { name: format }).getAttribute('href');
+    const file = await page.request.get(href!);
+    expect(file.status()).toBe(200);
+    expect(file.headers()['content-disposition']).toMatch(/^attachment/);
+  }
   await shot(page, 'upload');
 
   // one flow names a compartment the web does not have: refused, against its row and column
