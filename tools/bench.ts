@@ -2,6 +2,7 @@ import { analyze, analyzeWeb, countSimpleCycles, createNetwork, parseWeb } from 
 import { generateWeb } from '../libs/network-analysis/src/testing/generated-web';
 import { apiBenchmarks } from './bench-api';
 import { harvestBenchmarks } from './bench-harvest';
+import { serverBenchmarks } from './bench-server';
 import { readJsonFile, runCommand } from './cli';
 
 /**
@@ -80,9 +81,11 @@ if (process.argv[2] === '--json') {
 } else {
   const harvest = await harvestBenchmarks();
   const api = await apiBenchmarks();
+  const server = await serverBenchmarks();
   printTable([
     ...engineRows(),
     ...harvest.map((h) => underMs(h.name, h.medianMs, h.limitMs)),
     ...api.map((a) => underMs(a.name, a.ms, a.limitMs)),
+    ...server.map((s) => underMs(s.name, s.ms, s.limitMs)),
   ]);
 }
