@@ -5,7 +5,9 @@ import fc from 'fast-check';
 import cone from '../../../tests/fixtures/cone-spring.json';
 import demo from '../../../seeds/brannock-bay.json';
 import { generateWeb } from '../../../libs/network-analysis/src/testing/generated-web';
+import type { HarvestOption, Web } from '@seinework/contracts';
 import { createDrawPool, type DrawPool } from '@seinework/draw-pool';
+import { optionUncertainty } from '@seinework/harvest-options';
 import { createApp } from './app';
 import { createEngineJobs, type EngineJobs } from './engine/engine-jobs';
 import { HTTP_CYCLE_LIMITS } from './http/cycle-limits';
@@ -129,6 +131,8 @@ describe('server', () => {
       expect(first.uncertainty.succeeded).toBe(12);
       expect(first.uncertainty.indicators.totalCatch.difference.median).toBeCloseTo(100, 9);
       expect(again.uncertainty).toEqual(first.uncertainty);
+      // the server's chunks on its draw pool give what the engine gives in process
+      expect(first.uncertainty).toEqual(JSON.parse(JSON.stringify(await optionUncertainty(cone as Web, option as HarvestOption, option.uncertainty))));
     });
 
     it('streams progress lines, then the same result, when asked for NDJSON', async () => {
