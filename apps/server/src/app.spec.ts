@@ -200,7 +200,7 @@ describe('server', () => {
       await fc.assert(fc.asyncProperty(fc.oneof(anyJson, brokenWeb, brokenFlow), (body) => answersClearly('/api/analyses', body)), { numRuns: 150 });
     });
 
-    it('POST /api/options/run and /api/options/sensitivity', async () => {
+    it('POST /api/options/run, /api/options/sensitivity and /api/balancing', async () => {
       const bodies = fc.oneof(
         anyJson,
         fc.record({ web: fc.oneof(brokenWeb, brokenFlow), option: brokenOption }),
@@ -208,6 +208,7 @@ describe('server', () => {
       );
       await fc.assert(fc.asyncProperty(bodies, (body) => answersClearly('/api/options/run', body)), { numRuns: 150 });
       await fc.assert(fc.asyncProperty(fc.oneof(anyJson, fc.record({ web: fc.oneof(brokenWeb, brokenFlow), response: anyJson })), (body) => answersClearly('/api/options/sensitivity', body)), { numRuns: 100 });
+      await fc.assert(fc.asyncProperty(fc.oneof(anyJson, fc.record({ web: fc.oneof(brokenWeb, brokenFlow), method: anyJson })), (body) => answersClearly('/api/balancing', body)), { numRuns: 100 });
     });
   });
 });

@@ -84,6 +84,14 @@ describe('request bodies', () => {
     expect(response.body.error).toMatch(/larger than 5 MB/);
   });
 
+  it('reads the bodies of every other route the same way (before any route sees them)', async () => {
+    const elsewhere = (text: string) => request(app).post('/api/elsewhere').set('Content-Type', 'application/json').send(text);
+    expect((await elsewhere('{"a":1,"a":2}')).body).toEqual({ error: 'The request body gives a key twice', details: ['duplicate key "a"'] });
+    expect((await elsewhere('{"a":').set('Content-Encoding', 'gzip')).status).toBe(400);
+    expect((await request(app).post('/api/elsewhere').set('Content-Type', 'text/csv').send('a,b')).status).toBe(415);
+    expect((await elsewhere('{"a":1}')).status).toBe(404);
+  });
+
   it('answers 400 naming the problem for text that is not JSON', async () => {
     const response = await postJson('/api/analyses', '{"name": ');
     expect(response.status).toBe(400);
