@@ -55,7 +55,7 @@ export async function apiBenchmarks(): Promise<ApiBenchmark[]> {
     });
     server.on('request', app);
 
-    const signIn = { method: 'POST' as const, path: '/api/auth/sign-in', headers: { 'content-type': 'application/json', origin }, body: JSON.stringify({ email: demoEmail('council'), password: DEMO_PASSWORD }) };
+    const signIn = { method: 'POST' as const, path: '/api/auth/sign-in', headers: { 'content-type': 'application/json', origin }, body: JSON.stringify({ email: demoEmail('staff'), password: DEMO_PASSWORD }) };
     const signedIn = await fetch(origin + signIn.path, { method: 'POST', headers: signIn.headers, body: signIn.body });
     const cookie = signedIn.headers.get('set-cookie')!.split(';')[0];
     const list = (await (await fetch(`${origin}/api/webs`, { headers: { cookie } })).json()) as { items: { id: string; published: { id: string } }[] };

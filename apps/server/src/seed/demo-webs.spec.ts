@@ -11,10 +11,10 @@ afterEach(async () => {
 });
 
 describe('seedDemoWebs', () => {
-  it('creates the Brannock Bay web with its baseline published by the demo analyst, readable by council', async () => {
+  it('creates the Brannock Bay web with its baseline published by the demo analyst, readable by staff', async () => {
     await seedDemoWebs(t.database.db);
-    const council = await t.signInAs('council');
-    const list = (await council.get('/api/webs')).body;
+    const staff = await t.signInAs('staff');
+    const list = (await staff.get('/api/webs')).body;
     expect(list.total).toBe(1);
     expect(list.items[0]).toMatchObject({
       name: brannockBay.name,
@@ -23,7 +23,7 @@ describe('seedDemoWebs', () => {
       latestVersion: { number: 1, status: 'published' },
       published: { number: 1, publishedBy: 'Ana Demo (analyst)' },
     });
-    const version = (await council.get(`/api/webs/${list.items[0].id}/versions/${list.items[0].published.id}`)).body;
+    const version = (await staff.get(`/api/webs/${list.items[0].id}/versions/${list.items[0].published.id}`)).body;
     expect(version.web).toEqual(brannockBay);
   });
 });

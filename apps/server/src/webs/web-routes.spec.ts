@@ -45,12 +45,13 @@ describe('webs and versions', () => {
     expect(await t.database.db.select({ n: count() }).from(auditEvents)).toEqual(before);
   });
 
-  it('publishes a balanced version once; council then sees it, and never a draft', async () => {
+  it('publishes a balanced version once; staff then see it, and never a draft', async () => {
     const { analyst, id, versionId } = await createWeb();
-    const council = await t.signInAs('council');
-    expect((await council.get(`/api/webs/${id}`)).status).toBe(404);
-    expect((await council.get(`/api/webs/${id}/versions/${versionId}`)).status).toBe(404);
-    expect((await council.get('/api/webs')).body).toEqual({ items: [], total: 0 });
+    // staff read every published baseline (council only those with an option shared with them)
+    const staff = await t.signInAs('staff');
+    expect((await staff.get(`/api/webs/${id}`)).status).toBe(404);
+    expect((await staff.get(`/api/webs/${id}/versions/${versionId}`)).status).toBe(404);
+    expect((await staff.get('/api/webs')).body).toEqual({ items: [], total: 0 });
 
     const published = await analyst.post(`/api/webs/${id}/versions/${versionId}/publish`);
     expect(published.status).toBe(200);
@@ -59,10 +60,10 @@ describe('webs and versions', () => {
 
     const draft = await analyst.post(`/api/webs/${id}/versions`).send({ web: tinyWeb(5), note: 'fish respiration revised', basedOn: versionId });
     expect(draft.status).toBe(201);
-    const detail = (await council.get(`/api/webs/${id}`)).body as WebDetail;
+    const detail = (await staff.get(`/api/webs/${id}`)).body as WebDetail;
     expect(detail.versions.map((v) => [v.number, v.status])).toEqual([[1, 'published']]);
-    expect((await council.get(`/api/webs/${id}/versions/${draft.body.versionId}`)).status).toBe(404);
-    const list = (await council.get('/api/webs')).body as { items: WebSummary[]; total: number };
+    expect((await staff.get(`/api/webs/${id}/versions/${draft.body.versionId}`)).status).toBe(404);
+    const list = (await staff.get('/api/webs')).body as { items: WebSummary[]; total: number };
     expect(list.total).toBe(1);
     expect(list.items[0]).toMatchObject({ latestVersion: { number: 1, status: 'published' }, published: { number: 1, publishedBy: 'Ana Demo (analyst)' } });
     const analystList = (await analyst.get('/api/webs')).body as { items: WebSummary[] };
