@@ -112,13 +112,33 @@ test('an admin invites someone, who follows the e-mailed link, sets name and pas
   await shot(invited, 'webs-as-invited-council-member');
 
   // the link worked once
-  await invited.goto(link);
-  await expect(invited.getByRole('alert')).toContainText('This invitation cannot be used');
-  await shot(invited, 'invitation-used');
-  await theirs.close();
+  const newcomer = await theirs.newPage();
+  await newcomer.goto(link);
+  await expect(newcomer.getByRole('alert')).toContainText('This invitation cannot be used');
+  await shot(newcomer, 'invitation-used');
+  await newcomer.close();
 
   await page.getByRole('tab', { name: 'Invitations' }).click();
-  await expect(page.getByRole('row', { name: new RegExp(invitee.replace(/\./g, '\\.')) })).toContainText('Accepted');
+  const inviteeRow = new RegExp(invitee.replace(/\./g, '\\.'));
+  await expect(page.getByRole('row', { name: inviteeRow })).toContainText('Accepted');
+
+  // the admin gives the newcomer another role, then stops them signing in: their open page is sent to sign in
+  await page.getByRole('tab', { name: 'Users' }).click();
+  await page.getByRole('combobox', { name: 'Role of Morwenna Tidewell' }).click();
+  await page.getByRole('option', { name: 'Analyst' }).click();
+  await expect(page.getByText("Morwenna Tidewell's role is now Analyst.")).toBeVisible();
+  await page.getByRole('switch', { name: 'Active: Morwenna Tidewell' }).click();
+  await expect(page.getByText('Morwenna Tidewell can no longer sign in.')).toBeVisible();
+  await expect(page.getByRole('switch', { name: 'Deactivated: Morwenna Tidewell' })).not.toBeChecked();
+  await shot(page, 'admin-users-deactivated');
+  // the page still thinks they are signed in; opening the list of webs again asks the server, which says the session is over
+  await invited.getByRole('button', { name: /^Account of / }).click();
+  await invited.getByRole('menuitem', { name: 'Account and password' }).click();
+  await expect(invited).toHaveURL(/\/account$/);
+  await invited.getByRole('banner').getByRole('link', { name: 'Webs' }).click();
+  await expect(invited).toHaveURL(/\/sign-in\?returnTo=%2Fwebs/);
+  await shot(invited, 'sign-in-after-session-ended');
+  await theirs.close();
 });
 
 test('a forgotten password is reset through the e-mailed link, then changed back on the account page', async ({ page, request }) => {
