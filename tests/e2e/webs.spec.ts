@@ -182,6 +182,28 @@ test('clone a published baseline into a new web and edit a flow', async ({ page 
   expect(problems).toEqual([]);
 });
 
+test('staff read published baselines and are offered no changes', async ({ page }) => {
+  const problems = watchForErrors(page);
+  // staff read every published baseline (council members only those shared with them for review)
+  await signIn(page, 'staff');
+  const list = page.getByRole('table', { name: 'Webs' });
+  await expect(list).toContainText(demo.name);
+  // a web with drafts only (the clone above, when this runs after it) is not shown to staff
+  await expect(list).not.toContainText('Brannock Bay, wetter years');
+  await expect(page.getByRole('link', { name: 'Upload a web' })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'New from WEB.json' })).toHaveCount(0);
+  await shot(page, 'webs-list-staff');
+
+  await list.getByRole('link', { name: demo.name }).click();
+  await expect(page.getByRole('region', { name: 'Headline indicators' })).toBeVisible();
+  await expect(page.getByRole('link', { name: 'Edit as a new draft' })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Publish' })).toHaveCount(0);
+  await page.getByRole('button', { name: 'More for version 1' }).click();
+  await expect(page.getByRole('menuitem')).toHaveText(['Download as a workbook (XLSX)', 'Download as CSV tables', 'Download as WEB.json'].map((t) => new RegExp(t.replace(/[()]/g, '\\$&'))));
+  await shot(page, 'web-page-staff');
+  expect(problems).toEqual([]);
+});
+
 test('readable at 200 % zoom: no page scrolls sideways', async ({ page }) => {
   // 640 × 400 CSS pixels at twice the density is how a 1280 × 800 screen shows the app at 200 %
   await page.setViewportSize({ width: 640, height: 400 });
