@@ -61,6 +61,11 @@ export async function startFakeSmtp(options: FakeSmtpOptions): Promise<FakeSmtp>
       });
     },
   });
+  // A client that drops its connection mid-talk is its own problem, not a reason to stop Seinework
+  // (an 'error' event without a listener would end the process).
+  server.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code !== 'ECONNRESET') console.error('The local SMTP server met an error:', error.message);
+  });
   await new Promise<void>((resolve, reject) => {
     server.server.once('error', reject);
     server.listen(0, '127.0.0.1', () => {

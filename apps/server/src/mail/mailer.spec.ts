@@ -1,3 +1,5 @@
+import { once } from 'node:events';
+import { connect } from 'node:net';
 import type { ParsedMessage } from './parse-message';
 import { startFakeSmtp, type FakeSmtp } from './fake-smtp';
 import { createMailer, MailError, transportOptionsOf } from './mailer';
@@ -22,6 +24,19 @@ describe('mailer and fake SMTP server', () => {
     await mailer.send({ to: 'zoe@example.test', subject: 'Invitation — Brannock Bay 2026', text });
     mailer.close();
     expect(received).toEqual([{ to: 'zoe@example.test', subject: 'Invitation — Brannock Bay 2026', text }]);
+  });
+
+  it('keeps running when a client resets its connection in the middle of a message', async () => {
+    const socket = connect(fake.port, '127.0.0.1');
+    await once(socket, 'data');
+    socket.write('HELO client\r\nMAIL FROM:<a@example.test>\r\nRCPT TO:<b@example.test>\r\nDATA\r\nSubject: half\r\n');
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    socket.resetAndDestroy();
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    const mailer = createMailer(fake.url);
+    await mailer.send({ to: 'after@example.test', subject: 'still here', text: 'yes' });
+    mailer.close();
+    expect(received.map((message) => message.subject)).toEqual(['still here']);
   });
 
   it('listens on loopback only', () => {
