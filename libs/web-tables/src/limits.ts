@@ -11,3 +11,5 @@ export const MAX_UPLOAD_ROWS = 50_000;
 export const MAX_COMPARTMENTS = API_LIMITS.compartments;
 /** Files in one upload (one per table at most, plus room for nothing else). */
 export const MAX_UPLOAD_FILES = 6;
+/** What one workbook may unpack to (its XML), as its zip directory declares. */
+export const MAX_UNPACKED_BYTES = 60 * 1024 * 1024;

@@ -1,6 +1,7 @@
 import ExcelJS from 'exceljs';
 import { readUpload } from './read-upload';
-import { MAX_UPLOAD_BYTES } from './limits';
+import { MAX_UNPACKED_BYTES, MAX_UPLOAD_BYTES } from './limits';
+import { declaredUnpackedBytes } from './zip-size';
 import { webToXlsx } from './write-xlsx';
 
 /** Every kind of bad row, reported against its table, row and column; nothing returned as a web. */
@@ -116,6 +117,20 @@ describe('readUpload', () => {
     const large = new Uint8Array(MAX_UPLOAD_BYTES + 1).fill(0x41);
     expect((await readUpload([{ name: 'web.csv', data: large }])).problems[0].problem).toBe('the upload is 5.0 MB: at most 5.0 MB');
     expect((await readUpload([])).problems[0].problem).toMatch(/no file was sent/);
+  });
+
+  it('refuses a workbook that unpacks to more than the limit, before unpacking it', async () => {
+    const workbook = new ExcelJS.Workbook();
+    const sheet = workbook.addWorksheet('compartments');
+    // long, repetitive (but distinct) names pack into little and unpack into much
+    const filler = 'x'.repeat(30_000);
+    for (let k = 0; k < 2_200; k++) sheet.addRow([`c${k}`, `${k}${filler}`, 'producer']);
+    const data = new Uint8Array(await workbook.xlsx.writeBuffer());
+    expect(data.byteLength).toBeLessThan(MAX_UPLOAD_BYTES);
+    expect(declaredUnpackedBytes(data)).toBeGreaterThan(MAX_UNPACKED_BYTES);
+    expect((await readUpload([{ name: 'big.xlsx', data }])).problems).toEqual([
+      { table: 'big.xlsx', row: null, column: null, problem: 'the workbook unpacks to more than 60 MB: save it without other sheets, images or formatting, or send CSV' },
+    ]);
   });
 
   it('reports a broken workbook and bad JSON without throwing', async () => {

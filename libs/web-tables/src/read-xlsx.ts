@@ -1,12 +1,19 @@
 import ExcelJS from 'exceljs';
 import { isTableName, TABLE_NAMES } from './layout';
+import { MAX_UNPACKED_BYTES } from './limits';
 import { ProblemList } from './problems';
 import type { Cell, RawRow, RawTable } from './raw-table';
 import type { TablesFound } from './read-csv';
+import { declaredUnpackedBytes } from './zip-size';
 
 /** An XLSX workbook in our layout: one sheet per table, named after it, with a header row. */
 export async function readXlsx(data: Uint8Array, fileName: string): Promise<TablesFound> {
   const problems = new ProblemList();
+  const unpacked = declaredUnpackedBytes(data);
+  if (unpacked !== undefined && unpacked > MAX_UNPACKED_BYTES) {
+    problems.add(fileName, null, null, `the workbook unpacks to more than ${MAX_UNPACKED_BYTES / 1024 / 1024} MB: save it without other sheets, images or formatting, or send CSV`);
+    return { tables: [], problems };
+  }
   const workbook = new ExcelJS.Workbook();
   try {
     await workbook.xlsx.load(data as unknown as ExcelJS.Buffer);
