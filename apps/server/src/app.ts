@@ -15,6 +15,7 @@ import type { SignInLimits } from './auth/sign-in-limits';
 import type { AppDatabase } from './db/database';
 import { mountMailRoutes } from './mail/mail-routes';
 import { webRoutes } from './webs/web-routes';
+import { optionStoreRoutes } from './options/option-routes';
 import type { Mailer } from './mail/mailer';
 import type { DrawPool } from '@seinework/draw-pool';
 
@@ -66,6 +67,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
     const { sessions } = mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
     mountMailRoutes(app, { db: settings.database.db, sessions, mailer: settings.mailer, publicOrigin });
     app.use('/api/webs', webRoutes({ db: settings.database.db, engine }));
+    app.use('/api', optionStoreRoutes({ db: settings.database.db, engine }));
   }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.originalUrl.split('?')[0]}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { harvestOptionSchema, type HarvestOption, type UncertaintySettings } from './option';
-import type { ScalarIndicators } from './analysis';
+import type { FleetSummary, ScalarIndicators } from './analysis';
 
 /** Request and answer shapes of stored harvest options, runs, council review shares, comparisons and preferences. */
 
@@ -129,4 +129,14 @@ export interface PreferenceSummary {
 export interface AdjustmentProblem {
   adjustment: number | null;
   problem: string;
+}
+
+/**
+ * `POST /api/webs/:id/versions/:versionId/options/preview`: the option's deterministic run (no
+ * draws) in brief, for the option form — every scalar indicator before, after and their
+ * difference, and each fleet's figures before and after.
+ */
+export interface OptionPreview {
+  indicators: { key: keyof ScalarIndicators | 'fishingInBalance'; baseline: number | null; option: number | null; difference: number | null }[];
+  fleets: { fleet: string; baseline: FleetSummary | null; option: FleetSummary | null; fishingInBalance: number | null }[];
 }

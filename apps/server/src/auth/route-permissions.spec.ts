@@ -8,17 +8,21 @@ import { createTestApp, type TestAgent, type TestApp } from '../testing/test-app
  * (403 when the role may not take the row's action, anything but 401/403 when it may).
  *
  * OTHER SLICES: when you add a route, add its row below (method, path exactly as registered under
- * /api, and `access`: an Action of libs/contracts/src/roles.ts, 'signed-in' for any signed-in person,
- * or 'public'). The last test fails until every registered route has its row.
+ * /api, and `access`: an Action of libs/contracts/src/roles.ts, a list of Actions any one of which
+ * lets a role through, 'signed-in' for any signed-in person, or 'public'). The last test fails until
+ * every registered route has its row.
  * Requests carry an empty JSON body and made-up ids: a permitted role then gets a 400 or 404
  * without changing anything, which is enough to show it was let through.
  */
-type Access = Action | 'signed-in' | 'public';
+type Access = Action | readonly Action[] | 'signed-in' | 'public';
 interface RouteRow {
   readonly method: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
   readonly path: string;
   readonly access: Access;
 }
+
+/** Options are read by those who read every option and by those who read shared ones. */
+const OPTION_READERS: readonly Action[] = ['options.read-all', 'options.read-shared'];
 
 const ROUTES: readonly RouteRow[] = [
   // stateless (no stored data): open to anyone, as before accounts existed
@@ -58,6 +62,19 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'POST', path: '/api/webs/:id/versions/:versionId/clone', access: 'webs.create' },
   { method: 'GET', path: '/api/webs/:id/versions/:versionId/export', access: 'webs.read-published' },
   { method: 'GET', path: '/api/webs/:id/versions/:versionId/analysis', access: 'webs.read-published' },
+  // stored harvest options, council shares, preferences and comparisons (options-server)
+  { method: 'POST', path: '/api/webs/:id/versions/:versionId/options', access: 'options.edit' },
+  { method: 'GET', path: '/api/webs/:id/versions/:versionId/options', access: OPTION_READERS },
+  { method: 'POST', path: '/api/webs/:id/versions/:versionId/options/preview', access: 'options.edit' },
+  { method: 'GET', path: '/api/options/:id', access: OPTION_READERS },
+  { method: 'PUT', path: '/api/options/:id', access: 'options.edit' },
+  { method: 'POST', path: '/api/options/:id/duplicate', access: 'options.edit' },
+  { method: 'DELETE', path: '/api/options/:id', access: 'options.edit' },
+  { method: 'POST', path: '/api/options/:id/shares', access: 'options.share' },
+  { method: 'DELETE', path: '/api/shares/:id', access: 'options.share' },
+  { method: 'POST', path: '/api/options/:id/preferences', access: 'preferences.record' },
+  { method: 'GET', path: '/api/options/:id/preferences', access: OPTION_READERS },
+  { method: 'GET', path: '/api/comparisons', access: OPTION_READERS },
 ];
 
 /** Every route of the app as `METHOD /path`, read from Express's router (mounted routers included). */
@@ -92,7 +109,8 @@ function send(agent: TestAgent, row: RouteRow) {
   return row.method === 'GET' ? request : request.send({});
 }
 
-const allowed = (role: Role, access: Access) => access === 'public' || access === 'signed-in' || can(role, access);
+const allowed = (role: Role, access: Access) =>
+  access === 'public' || access === 'signed-in' || (typeof access === 'string' ? can(role, access) : access.some((action) => can(role, action)));
 
 let t: TestApp;
 const agents = new Map<Role, TestAgent>();
@@ -115,7 +133,7 @@ describe('role × route matrix', () => {
       if (allowed(role, row.access)) expect([401, 403], JSON.stringify(response.body)).not.toContain(response.status);
       else {
         expect(response.status).toBe(403);
-        expect(response.body.error).toContain(row.access);
+        for (const action of typeof row.access === 'string' ? [row.access] : row.access) expect(response.body.error).toContain(action);
       }
     });
   });
@@ -127,6 +145,6 @@ describe('role × route matrix', () => {
   });
 
   it('names only actions of the role table', () => {
-    for (const row of ROUTES) expect(['public', 'signed-in', ...ACTIONS]).toContain(row.access);
+    for (const row of ROUTES) for (const access of typeof row.access === 'string' ? [row.access] : row.access) expect(['public', 'signed-in', ...ACTIONS]).toContain(access);
   });
 });

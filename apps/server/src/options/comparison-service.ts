@@ -1,0 +1,43 @@
+import { and, eq, inArray } from 'drizzle-orm';
+import type { Comparison, CurrentUser } from '@seinework/contracts';
+import type { Db } from '../db/database';
+import { options, runs, users } from '../db/schema';
+import { RequestError } from '../http/errors';
+import { comparedIndicators } from './compared-indicators';
+import { visibleOption } from './option-visibility';
+import type { PreferenceService } from './preference-service';
+import { runSummary } from './run-summary';
+
+/**
+ * `GET /api/comparisons?runs=…`: 2–6 finished runs of options on one baseline, every scalar
+ * indicator side by side, with the council's current preferences on those options.
+ */
+export class ComparisonService {
+  constructor(
+    private readonly db: Db,
+    private readonly preferenceService: PreferenceService,
+  ) {}
+
+  async compare(user: CurrentUser, runIds: readonly string[]): Promise<Comparison> {
+    const rows = await this.db
+      .select({ run: runs, createdBy: users.name, optionName: options.name, webId: options.webId, versionId: options.versionId })
+      .from(runs)
+      .innerJoin(options, eq(options.id, runs.optionId))
+      .innerJoin(users, eq(users.id, runs.createdBy))
+      .where(and(inArray(runs.id, [...runIds]), visibleOption(user)));
+    const ordered = runIds.map((id) => rows.find((row) => row.run.id === id));
+    const missing = runIds.filter((_id, i) => !ordered[i]);
+    if (missing.length > 0) throw new RequestError(404, `No such run: ${missing.join(', ')}`);
+    const found = ordered as NonNullable<(typeof ordered)[number]>[];
+    const unfinished = found.filter((row) => row.run.status !== 'done');
+    if (unfinished.length > 0) throw new RequestError(409, 'Only finished runs can be compared', unfinished.map((row) => `run ${row.run.id} ("${row.optionName}") is ${row.run.status}`));
+    if (new Set(found.map((row) => row.versionId)).size > 1) {
+      throw new RequestError(422, 'Compared runs must stand on one baseline (one published version)', found.map((row) => `run ${row.run.id} ("${row.optionName}") is on version ${row.versionId}`));
+    }
+    return {
+      runs: found.map((row) => ({ ...runSummary(row.run, row.createdBy), optionName: row.optionName, webId: row.webId, versionId: row.versionId })),
+      indicators: comparedIndicators(found.map((row) => ({ runId: row.run.id, result: row.run.result }))),
+      preferences: await this.preferenceService.current([...new Set(found.map((row) => row.run.optionId))]),
+    };
+  }
+}
