@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, effect, inject, input, untracked } from '@angular/core';
 import { DatePipe } from '@angular/common';
+import { Title } from '@angular/platform-browser';
 import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -51,10 +52,17 @@ export class WebPage {
   private readonly dialog = inject(MatDialog);
   protected readonly columns = ['number', 'status', 'note', 'created', 'published', 'basedOn', 'actions'];
 
+  private readonly title = inject(Title);
+
   constructor() {
     effect(() => {
       const id = this.id();
       untracked(() => this.store.load(id, this.version()));
+    });
+    // the browser tab and history name the web, not just "Web"
+    effect(() => {
+      const name = this.store.detail()?.name;
+      if (name) this.title.setTitle(`${name} — Seinework`);
     });
   }
 
