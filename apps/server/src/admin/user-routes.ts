@@ -1,7 +1,7 @@
 import { asc, count, eq } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
-import { userUpdateBodySchema, type Page, type UserSummary } from '@seinework/contracts';
+import { adminPageQuerySchema, userUpdateBodySchema, type Page, type UserSummary } from '@seinework/contracts';
 import { recordAudit } from '../audit/audit-log';
 import { currentUser, requireAction } from '../auth/guards';
 import type { Sessions } from '../auth/session';
@@ -9,7 +9,6 @@ import type { Db } from '../db/database';
 import { users } from '../db/schema';
 import { RequestError } from '../http/errors';
 import { parseInput } from '../validate';
-import { pageQuerySchema } from './page-query';
 
 const userIdSchema = z.strictObject({ id: z.string().min(1).max(100) });
 
@@ -18,7 +17,7 @@ export function adminUserRoutes({ db, sessions }: { db: Db; sessions: Sessions }
   const router = Router();
 
   router.get('/users', requireAction('users.manage'), async (request, response) => {
-    const { page, pageSize } = parseInput(pageQuerySchema, request.query, 'query');
+    const { page, pageSize } = parseInput(adminPageQuerySchema, request.query, 'query');
     const [rows, [{ total }]] = await Promise.all([
       db.select().from(users).orderBy(asc(users.email)).limit(pageSize).offset((page - 1) * pageSize),
       db.select({ total: count() }).from(users),
