@@ -2,7 +2,8 @@ import { Router, type Request } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { balancePreviewBodySchema, cloneBodySchema, newVersionBodySchema, uploadFieldsSchema, webDetailsSchema, webListQuerySchema } from '@seinework/contracts';
-import { MAX_UPLOAD_BYTES, MAX_UPLOAD_FILES, readUpload } from '@seinework/web-tables';
+import { createWorkerPool } from '@seinework/draw-pool';
+import { MAX_UPLOAD_BYTES, MAX_UPLOAD_FILES, type WebRead } from '@seinework/web-tables';
 import { currentUser, requireAction } from '../auth/guards';
 import type { Db } from '../db/database';
 import type { EngineJobs } from '../engine/engine-jobs';
@@ -12,6 +13,7 @@ import { tableSelection } from '../http/table-selection';
 import { parseInput } from '../validate';
 import { balancePreview } from './balance-preview';
 import { EXPORT_FORMATS, exportFile } from './export-file';
+import type { UploadTask } from './upload-worker';
 import { versionAnalysis } from './version-analysis';
 import { checkedWeb, WebService } from './web-service';
 
@@ -31,6 +33,8 @@ export function webRoutes({ db, engine }: { db: Db; engine: EngineJobs }): Route
   const router = Router();
   const webs = new WebService(db);
   const versionOf = (request: Request) => parseInput(versionAddress, request.params, 'address');
+  // One reader thread, started on demand and stopped when idle; a few uploads may wait for it (then 503).
+  const uploadReader = createWorkerPool<UploadTask, WebRead>(new URL('./upload-worker.ts', import.meta.url), { threads: 1, maxQueue: 4, keepAlive: false });
 
   router.get('/', requireAction('webs.read-published'), async (request, response) => {
     const query = parseInput(webListQuerySchema, request.query, 'query');
@@ -46,7 +50,7 @@ export function webRoutes({ db, engine }: { db: Db; engine: EngineJobs }): Route
   router.post('/upload', requireAction('webs.create'), upload, async (request, response) => {
     const fields = parseInput(uploadFieldsSchema, request.body, 'form');
     const files = (request.files as Express.Multer.File[] | undefined) ?? [];
-    const read = await readUpload(files.map((f) => ({ name: f.originalname, data: f.buffer })), fields);
+    const read = await uploadReader.run({ files: files.map((f) => ({ name: f.originalname, data: f.buffer })), fields }, clientSignal(request, response));
     if (!read.web) throw new RequestError(422, 'The upload has problems: nothing was stored', read.problems);
     const created = await webs.create(currentUser(response), { web: checkedWeb(read.web), name: fields.name, place: read.place, period: read.period, note: fields.note });
     response.status(201).json({ ...created, warnings: read.warnings });
