@@ -2,7 +2,7 @@ import { inject } from '@angular/core';
 import { patchState, signalStore, withMethods, withState } from '@ngrx/signals';
 import { firstValueFrom } from 'rxjs';
 import type { UploadProblem, WebSummary } from '@seinework/contracts';
-import { WebsApi, type Created, type UploadDetails } from './webs-api';
+import { WebsApi, type Created, type ExportFormat, type UploadDetails } from './webs-api';
 import { errorMessage, uploadProblems } from './request-error';
 
 interface UploadState {
@@ -37,7 +37,7 @@ export const UploadStore = signalStore(
         return null;
       }
     },
-    exampleUrl(format: 'xlsx' | 'csv' | 'json'): string | null {
+    exampleUrl(format: ExportFormat): string | null {
       const example = store.example();
       return example?.published ? api.exportUrl(example.id, example.published.id, format) : null;
     },

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { DecimalPipe } from '@angular/common';
 import type { Web } from '@seinework/contracts';
-import { MAX_LINK_WIDTH, MIN_LINK_WIDTH, NODE_RADIUS, layoutWeb, linkWidth } from './web-diagram-layout';
+import { NODE_RADIUS, layoutWeb, linkWidth } from './web-diagram-layout';
 
 const LABEL_LINE = 16;
 
@@ -32,7 +32,6 @@ export class WebDiagram {
     return [largest, largest / 10, largest / 100].map((value) => ({ value, width: linkWidth(value, max) }));
   });
   protected readonly flowRows = computed(() => [...this.layout().links].sort((a, b) => a.fromName.localeCompare(b.fromName) || b.value - a.value));
-  protected readonly widths = { min: MIN_LINK_WIDTH, max: MAX_LINK_WIDTH };
 
   /** A compartment name broken into lines of about sixteen characters at spaces. */
   protected labelLines(name: string): string[] {

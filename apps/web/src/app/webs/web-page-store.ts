@@ -2,7 +2,7 @@ import { computed, inject } from '@angular/core';
 import { patchState, signalStore, withComputed, withMethods, withState } from '@ngrx/signals';
 import { firstValueFrom } from 'rxjs';
 import type { Analysis, VersionDetail, WebDetail } from '@seinework/contracts';
-import { WebsApi, type Created } from './webs-api';
+import { WebsApi, type Created, type ExportFormat } from './webs-api';
 import { errorMessage } from './request-error';
 
 interface WebPageState {
@@ -15,7 +15,7 @@ interface WebPageState {
   versionError: string | null;
   analysis: Analysis | null;
   analysisError: string | null;
-  /** What the last publish or clone did, or why it was refused. */
+  /** A publish or clone under way, and why the last one was refused. */
   busy: boolean;
   actionError: string | null;
 }
@@ -117,7 +117,7 @@ export const WebPageStore = signalStore(
           return null;
         }
       },
-      exportUrl(versionId: string, format: 'json' | 'csv' | 'xlsx'): string {
+      exportUrl(versionId: string, format: ExportFormat): string {
         return api.exportUrl(store.detail()?.id ?? '', versionId, format);
       },
     };

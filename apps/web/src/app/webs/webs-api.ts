@@ -64,7 +64,7 @@ export class WebsApi {
   }
 
   version(webId: string, versionId: string): Observable<VersionDetail> {
-    return this.http.get<VersionDetail>(`${versionPath(webId, versionId)}`);
+    return this.http.get<VersionDetail>(versionPath(webId, versionId));
   }
 
   analysis(webId: string, versionId: string): Observable<Analysis> {
