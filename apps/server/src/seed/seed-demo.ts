@@ -4,12 +4,14 @@ import { hashPassword } from '../auth/passwords';
 import type { AppDatabase, Db } from '../db/database';
 import { users } from '../db/schema';
 import { DEMO_PASSWORD, DEMO_USERS } from './demo-users';
+import { seedDemoOptions } from './demo-options';
 import { seedDemoWebs } from './demo-webs';
 
 export class DemoRefusedError extends Error {}
 
 /**
- * Demo data for a fresh database: one user per role (and, from the webs slice, the demo web).
+ * Demo data for a fresh database: one user per role, the demo web and its harvest options (whose
+ * runs main.ts computes after the server listens: finishDemoRuns).
  * Runs once: a database that already has users is left alone. Refused in production, where
  * demo accounts with a published password must never exist.
  */
@@ -21,6 +23,7 @@ export async function seedDemo(database: AppDatabase, nodeEnv: string | undefine
   await database.db.transaction(async (tx) => {
     await seedDemoUsers(tx);
     await seedDemoWebs(tx);
+    await seedDemoOptions(tx);
   });
   return { seeded: true };
 }
