@@ -182,6 +182,22 @@ test('clone a published baseline into a new web and edit a flow', async ({ page 
   expect(problems).toEqual([]);
 });
 
+test('a new web straight from a WEB.json file, and a file that is not JSON refused in plain words', async ({ page }) => {
+  const problems = watchForErrors(page);
+  await signIn(page, 'analyst');
+  const picker = page.locator('input[type=file][accept*=json]');
+  await picker.setInputFiles({ name: 'notes.json', mimeType: 'application/json', buffer: Buffer.from('{"name": "half a file",') });
+  await expect(page.getByRole('alert')).toContainText('No web was made from notes.json: it is not valid JSON');
+  await shot(page, 'webs-list-json-refused');
+
+  await picker.setInputFiles({ name: 'bay.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify({ ...demo, name: 'Brannock Bay from WEB.json' })) });
+  await expect(page.getByRole('heading', { level: 1, name: 'Brannock Bay from WEB.json' })).toBeVisible();
+  await expect(page.getByRole('table', { name: 'Versions' }).getByRole('row')).toHaveCount(2);
+  // the demo web is balanced, so even its first draft has indicators
+  await expect(page.getByRole('region', { name: 'Headline indicators' })).toBeVisible();
+  expect(problems).toEqual([]);
+});
+
 test('staff read published baselines and are offered no changes', async ({ page }) => {
   const problems = watchForErrors(page);
   // staff read every published baseline (council members only those shared with them for review)
@@ -198,7 +214,9 @@ test('staff read published baselines and are offered no changes', async ({ page 
   await expect(page.getByRole('region', { name: 'Headline indicators' })).toBeVisible();
   await expect(page.getByRole('link', { name: 'Edit as a new draft' })).toHaveCount(0);
   await expect(page.getByRole('button', { name: 'Publish' })).toHaveCount(0);
-  await page.getByRole('button', { name: 'More for version 1' }).click();
+  // the version menu opens from the keyboard too
+  await page.getByRole('button', { name: 'More for version 1' }).focus();
+  await page.keyboard.press('Enter');
   await expect(page.getByRole('menuitem')).toHaveText(['Download as a workbook (XLSX)', 'Download as CSV tables', 'Download as WEB.json'].map((t) => new RegExp(t.replace(/[()]/g, '\\$&'))));
   await shot(page, 'web-page-staff');
   expect(problems).toEqual([]);
