@@ -10,7 +10,7 @@ import { parseInput } from '../validate';
 import { currentSessionId, currentUser, requireSignIn } from './guards';
 import { hashPassword, verifyPassword } from './passwords';
 import type { Sessions } from './session';
-import { addressLimiter, clearFailures, countAttempt, tooMany, type SignInLimits } from './sign-in-limits';
+import { addressLimiter, clearFailures, countAttempt, tooMany, unknownAccountAttempts, type SignInLimits } from './sign-in-limits';
 
 export interface AuthRouteOptions {
   readonly db: Db;
@@ -30,20 +30,22 @@ export function authRoutes(options: AuthRouteOptions): Router {
   const router = Router();
   // a hash to verify against when the address is unknown, so both cases take as long
   const dummyHash = hashPassword('not a password anyone has');
+  const unknownAttempts = unknownAccountAttempts(limits);
 
   router.post('/auth/sign-in', addressLimiter(limits), async (request, response) => {
     const body = parseInput(signInBodySchema, request.body);
     const [user] = await db.select().from(users).where(eq(users.email, body.email));
+    const now = options.now();
+    const subject = user ? `user:${user.id}` : `email:${body.email}`;
+    const { attempts, windowEndsAt } = user ? await countAttempt(db, user.id, limits, now) : unknownAttempts.count(body.email, now);
+    if (attempts > limits.perAccount) {
+      await recordAudit(db, { actorId: null, action: 'auth.sign-in-refused', subject, detail: 'Too many failed sign-ins for this account' });
+      throw tooMany(limits, (windowEndsAt.getTime() - now.getTime()) / 1000);
+    }
     if (!user) {
       await verifyPassword(await dummyHash, body.password);
-      await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject: `email:${body.email}`, detail: 'No account with this address' });
+      await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject, detail: 'No account with this address' });
       throw new RequestError(401, WRONG);
-    }
-    const now = options.now();
-    const { attempts, windowEndsAt } = await countAttempt(db, user.id, limits, now);
-    if (attempts > limits.perAccount) {
-      await recordAudit(db, { actorId: null, action: 'auth.sign-in-refused', subject: `user:${user.id}`, detail: 'Too many failed sign-ins for this account' });
-      throw tooMany(limits, (windowEndsAt.getTime() - now.getTime()) / 1000);
     }
     const refusal = !(await verifyPassword(user.passwordHash, body.password))
       ? 'Wrong password'
@@ -53,7 +55,7 @@ export function authRoutes(options: AuthRouteOptions): Router {
           ? 'Demo accounts are refused in production'
           : undefined;
     if (refusal) {
-      await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject: `user:${user.id}`, detail: refusal });
+      await recordAudit(db, { actorId: null, action: 'auth.sign-in-failed', subject, detail: refusal });
       throw new RequestError(401, WRONG);
     }
     // sign-ins are when sessions are made, so also when the expired ones are swept away

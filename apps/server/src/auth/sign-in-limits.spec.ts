@@ -2,13 +2,18 @@ import { eq } from 'drizzle-orm';
 import { auditEvents } from '../db/schema';
 import { demoEmail, DEMO_PASSWORD } from '../seed/demo-users';
 import { createTestApp, type TestApp } from '../testing/test-app';
+import { createTestDatabase } from '../testing/test-database';
+import { unknownAccountAttempts } from './sign-in-limits';
 
 let t: TestApp;
-afterEach(() => t.close());
+// the first test database of a process is built here, not inside the first test's time limit
+beforeAll(async () => (await createTestDatabase()).close());
 
 const signIn = (email: string, password: string) => t.anonymous().post('/api/auth/sign-in').send({ email, password });
 
 describe('sign-in rate limits', () => {
+  afterEach(() => t.close());
+
   it('per address: 429 once too many sign-ins failed from one address, whatever the accounts', async () => {
     t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 3, perAccount: 100 } });
     for (const n of [1, 2, 3]) expect((await signIn(`nobody${n}@example.org`, 'wrong password')).status).toBe(401);
@@ -39,6 +44,18 @@ describe('sign-in rate limits', () => {
     expect(refused).toHaveLength(1);
   });
 
+  it('per account: an address without an account is limited alike (a 429 does not tell that an account exists)', async () => {
+    t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 100, perAccount: 3 } });
+    const statuses = async (email: string) => {
+      const answers = [];
+      for (let n = 0; n < 5; n++) answers.push((await signIn(email, 'wrong password')).status);
+      return answers;
+    };
+    const known = await statuses(demoEmail('analyst'));
+    expect(known).toEqual([401, 401, 401, 429, 429]);
+    expect(await statuses('nobody@example.org')).toEqual(known);
+  });
+
   it('per account: a success clears the count', async () => {
     t = await createTestApp({ signInLimits: { windowMinutes: 15, perAddress: 100, perAccount: 3 } });
     for (let round = 0; round < 3; round++) {
@@ -52,5 +69,20 @@ describe('sign-in rate limits', () => {
     const answers = await Promise.all(Array.from({ length: 8 }, () => signIn(demoEmail('analyst'), 'wrong password')));
     expect(answers.filter((a) => a.status === 401)).toHaveLength(5);
     expect(answers.filter((a) => a.status === 429)).toHaveLength(3);
+  });
+});
+
+describe('unknown-address attempts', () => {
+  it('forgets the oldest unknown address past its capacity', () => {
+    const limits = { windowMinutes: 15, perAddress: 100, perAccount: 3 };
+    const attempts = unknownAccountAttempts(limits, 2);
+    const now = new Date('2026-03-01T09:00:00Z');
+    expect(attempts.count('a@example.org', now).attempts).toBe(1);
+    expect(attempts.count('a@example.org', now).attempts).toBe(2);
+    attempts.count('b@example.org', now);
+    attempts.count('c@example.org', now);
+    expect(attempts.count('a@example.org', now).attempts).toBe(1);
+    expect(attempts.count('c@example.org', new Date('2026-03-01T09:14:00Z')).attempts).toBe(2);
+    expect(attempts.count('c@example.org', new Date('2026-03-01T09:15:00Z')).attempts).toBe(1);
   });
 });

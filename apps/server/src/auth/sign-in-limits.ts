@@ -53,6 +53,26 @@ export async function countAttempt(db: Db, userId: string, limits: SignInLimits,
   return { attempts: row?.attempts ?? 0, windowEndsAt: new Date((row?.since ?? now).getTime() + limits.windowMinutes * 60_000) };
 }
 
+/**
+ * The same count for addresses that have no account, kept in memory: otherwise a 429 after a few
+ * tries would tell that an address has an account and a 401 that it has none. Bounded: past
+ * `capacity` addresses the oldest window is forgotten.
+ */
+export function unknownAccountAttempts(limits: SignInLimits, capacity = 10_000) {
+  const windows = new Map<string, { attempts: number; since: Date }>();
+  return {
+    count(email: string, now: Date): { attempts: number; windowEndsAt: Date } {
+      const windowMs = limits.windowMinutes * 60_000;
+      const current = windows.get(email);
+      const next = current && now.getTime() - current.since.getTime() < windowMs ? { attempts: current.attempts + 1, since: current.since } : { attempts: 1, since: now };
+      windows.delete(email);
+      windows.set(email, next);
+      if (windows.size > capacity) windows.delete(windows.keys().next().value!);
+      return { attempts: next.attempts, windowEndsAt: new Date(next.since.getTime() + windowMs) };
+    },
+  };
+}
+
 export async function clearFailures(db: Db, userId: string): Promise<void> {
   await db.update(users).set({ failedSignIns: 0, failedSignInsSince: null }).where(eq(users.id, userId));
 }
