@@ -24,7 +24,7 @@ import type { CompartmentBalance } from './imbalance';
               <th scope="col">Compartment</th>
               <th scope="col" class="number">Inputs</th>
               <th scope="col" class="number">Outputs</th>
-              <th scope="col" class="number">Inputs − outputs</th>
+              <th scope="col" class="number">Difference</th>
               <th scope="col" class="number">Share</th>
             </tr>
           </thead>
@@ -47,7 +47,7 @@ import type { CompartmentBalance } from './imbalance';
           </tbody>
         </table>
       </div>
-      <p class="help">Inputs are imports and flows in; outputs are flows out, exports and respiration (in {{ unit() }}). Share is the difference as a part of the larger side.</p>
+      <p class="help">Inputs are imports and flows in; outputs are flows out, exports and respiration (in {{ unit() }}). The difference is inputs − outputs; its share is taken of the larger side.</p>
     </section>
   `,
   styles: `
@@ -58,7 +58,7 @@ import type { CompartmentBalance } from './imbalance';
     .bad { color: var(--mat-sys-error); font-weight: 500; }
     .table-scroll { position: relative; overflow-x: auto; }
     table { border-collapse: collapse; width: 100%; font-size: 0.875rem; }
-    th, td { padding: 4px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); text-align: left; font-weight: normal; }
+    th, td { padding: 4px 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); text-align: left; font-weight: normal; }
     thead th { font-weight: 500; color: var(--mat-sys-on-surface-variant); }
     .number { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
     tr.over { background: var(--mat-sys-error-container); color: var(--mat-sys-on-error-container); }
