@@ -137,6 +137,7 @@ test('an admin invites someone, who follows the e-mailed link, sets name and pas
   await expect(invited).toHaveURL(/\/account$/);
   await invited.getByRole('banner').getByRole('link', { name: 'Webs' }).click();
   await expect(invited).toHaveURL(/\/sign-in\?returnTo=%2Fwebs/);
+  await expect(invited.getByText('Your session has ended.')).toBeVisible();
   await shot(invited, 'sign-in-after-session-ended');
   await theirs.close();
 });

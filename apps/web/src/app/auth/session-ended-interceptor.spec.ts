@@ -32,6 +32,7 @@ describe('sessionEndedInterceptor', () => {
     await expect(answer).rejects.toMatchObject({ status: 401 });
     await vi.waitFor(() => expect(router.url).toBe('/sign-in?returnTo=%2Fadmin%2Fusers%3Fpage%3D2'));
     expect(TestBed.inject(SessionStore).user()).toBeNull();
+    expect(TestBed.inject(SessionStore).ended()).toBe(true);
   });
 
   it('leaves a wrong password on the sign-in route to the sign-in page', async () => {

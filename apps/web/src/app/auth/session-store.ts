@@ -14,12 +14,14 @@ interface SessionState {
   checked: boolean;
   loading: boolean;
   error: string | null;
+  /** The server ended a session this page had (expired, signed out elsewhere, deactivated): sign-in says so. */
+  ended: boolean;
 }
 
 /** Who is signed in, and what their role lets them do: the one source the guard, shell and pages read. */
 export const SessionStore = signalStore(
   { providedIn: 'root' },
-  withState<SessionState>({ user: null, checked: false, loading: false, error: null }),
+  withState<SessionState>({ user: null, checked: false, loading: false, error: null, ended: false }),
   withMethods((store, api = inject(AuthApi)) => {
     let pending: Promise<void> | null = null;
 
@@ -58,7 +60,7 @@ export const SessionStore = signalStore(
       async signIn(email: string, password: string): Promise<boolean> {
         patchState(store, { loading: true, error: null });
         try {
-          patchState(store, { user: await firstValueFrom(api.signIn(email, password)), checked: true, loading: false });
+          patchState(store, { user: await firstValueFrom(api.signIn(email, password)), checked: true, loading: false, ended: false });
           return true;
         } catch (error) {
           patchState(store, { user: null, loading: false, error: signInProblem(error) });
@@ -68,7 +70,7 @@ export const SessionStore = signalStore(
 
       /** A session the server opened some other way (an accepted invitation). */
       signedInAs(user: CurrentUser): void {
-        patchState(store, { user, checked: true, error: null });
+        patchState(store, { user, checked: true, error: null, ended: false });
       },
 
       /** Forget the session here, whatever the server answers (it may already have expired). */
@@ -84,7 +86,7 @@ export const SessionStore = signalStore(
 
       /** The server said the session is over (a 401 on some request). */
       sessionEnded(): void {
-        patchState(store, { user: null, checked: true });
+        patchState(store, { user: null, checked: true, ended: store.user() !== null || store.ended() });
       },
     };
   }),
