@@ -105,6 +105,24 @@ describe('council review', () => {
   });
 });
 
+describe('at the same moment', () => {
+  it('keeps one share of ten asked for at once, and one current preference of ten recorded at once', async () => {
+    const baseline = await publishedBaseline(t);
+    const option = await createOption(baseline);
+    await storeRun(t.database.db, option, {});
+    const asked = await Promise.all(Array.from({ length: 10 }, () => baseline.analyst.post(`/api/options/${option}/shares`).send({ audience: 'council' })));
+    expect(asked.map((r) => r.status).sort()).toEqual([201, ...Array<number>(9).fill(409)]);
+    expect(await t.database.db.select({ n: count() }).from(shares).where(eq(shares.optionId, option))).toEqual([{ n: 1 }]);
+
+    const council = await t.signInAs('council');
+    const recorded = await Promise.all(Array.from({ length: 10 }, (_, i) => council.post(`/api/options/${option}/preferences`).send({ reason: `reason ${i}` })));
+    for (const response of recorded) expect([201, 409]).toContain(response.status);
+    const current = await t.database.db.select().from(preferences).where(and(eq(preferences.versionId, baseline.versionId), isNull(preferences.supersededAt)));
+    expect(current).toHaveLength(1);
+    expect((await council.get(`/api/options/${option}/preferences`)).body.total).toBe(1);
+  });
+});
+
 describe('preferences', () => {
   it('records a council preference on a shared option; a new one on the same baseline supersedes it, the old kept', async () => {
     const { baseline, forage, gillnet, forageRun, gillnetRun } = await twoSharedOptions();

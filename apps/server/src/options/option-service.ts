@@ -67,7 +67,8 @@ export class OptionService {
     await this.refuseIfFrozen(id);
     await this.check(row.versionId, body, signal);
     await this.db.transaction(async (tx) => {
-      // the run check again, inside the transaction: a run started meanwhile freezes the option
+      // the run check again, under a lock on the option's row (starting a run takes the same lock)
+      await lockOption(tx, id);
       const [started] = await tx.select({ n: count() }).from(runs).where(eq(runs.optionId, id));
       if (started!.n > 0) throw frozen();
       await tx
@@ -103,6 +104,7 @@ export class OptionService {
   async remove(user: CurrentUser, id: string): Promise<void> {
     const row = await this.visibleRow(user, id);
     await this.db.transaction(async (tx) => {
+      await lockOption(tx, id);
       const [shared] = await tx.select({ id: shares.id }).from(shares).where(and(eq(shares.optionId, id), isNull(shares.withdrawnAt))).limit(1);
       if (shared) throw new RequestError(409, 'This option is shared: withdraw the share before deleting it');
       const [active] = await tx.select({ id: runs.id }).from(runs).where(and(eq(runs.optionId, id), inArray(runs.status, ACTIVE_RUN))).limit(1);
@@ -205,6 +207,11 @@ export async function activeShares(db: Db, where: SQL | undefined): Promise<(Sha
     sharedAt: share.sharedAt.toISOString(),
     closesAt: share.closesAt?.toISOString() ?? null,
   }));
+}
+
+/** Serialises the changes of one option (edit, delete, starting a run): `SELECT … FOR UPDATE` on its row. */
+export async function lockOption(tx: Db, id: string): Promise<void> {
+  await tx.select({ id: options.id }).from(options).where(eq(options.id, id)).for('update');
 }
 
 function frozen(): RequestError {
