@@ -1,5 +1,4 @@
-import { LuDecomposition, Matrix } from 'ml-matrix';
-import { OUTSIDE, WebError, withFluxValues, type Network } from '@seinework/network-analysis';
+import { identityMinusTransposed, luSolve, OUTSIDE, WebError, withFluxValues, type Network } from '@seinework/network-analysis';
 import type { CatchTarget, OptionPlan } from './option-web';
 
 /**
@@ -87,11 +86,8 @@ function throughflows(network: Network, { Phi, Y, z }: Donor): number[] {
   const n = network.n;
   const b = z.slice();
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) b[j] -= Phi[i][j] * Y[i];
-  const A = new Matrix(n, n);
-  for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) A.set(j, i, (i === j ? 1 : 0) - Phi[i][j]);
-  const lu = new LuDecomposition(A);
-  const x = lu.isSingular() ? [] : lu.solve(Matrix.columnVector(b)).getColumn(0);
-  if (x.length !== n || !x.every(Number.isFinite)) {
+  const x = luSolve(identityMinusTransposed(Phi), b);
+  if (x === null || !x.every(Number.isFinite)) {
     throw new WebError('infeasible', [
       'bottom-up response: some compartments have no exit but their catches, so donor control cannot settle their throughflow',
     ]);

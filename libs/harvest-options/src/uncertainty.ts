@@ -110,11 +110,24 @@ export function summarise(outcomes: readonly DrawOutcome[], settings: Uncertaint
   const bad = ordered.filter((o): o is Extract<DrawOutcome, { failure: string }> => 'failure' in o);
   const indicators = Object.fromEntries(
     SCALAR_INDICATORS.map((key) => {
-      const baseline = present(good.map((o) => o.baseline[key]));
-      const option = present(good.map((o) => o.option[key]));
-      const differences = present(good.map((o) => (o.baseline[key] === null || o.option[key] === null ? null : o.option[key]! - o.baseline[key]!)));
-      const positive = differences.filter((d) => d > 0).length / differences.length;
-      const negative = differences.filter((d) => d < 0).length / differences.length;
+      const baseline: number[] = [];
+      const option: number[] = [];
+      const differences: number[] = [];
+      let above = 0;
+      let below = 0;
+      for (const o of good) {
+        const before = o.baseline[key];
+        const after = o.option[key];
+        if (before !== null) baseline.push(before);
+        if (after !== null) option.push(after);
+        if (before === null || after === null) continue;
+        const d = after - before;
+        differences.push(d);
+        if (d > 0) above++;
+        else if (d < 0) below++;
+      }
+      const positive = above / differences.length;
+      const negative = below / differences.length;
       const summary: IndicatorUncertainty = {
         baseline: band(baseline),
         option: band(option),
@@ -137,18 +150,28 @@ export function summarise(outcomes: readonly DrawOutcome[], settings: Uncertaint
   };
 }
 
-function present(values: readonly (number | null)[]): number[] {
-  return values.filter((v): v is number => v !== null);
-}
-
 function band(values: readonly number[]): Band | null {
   if (values.length === 0) return null;
-  const sorted = [...values].sort((a, b) => a - b);
+  const sorted = ascending(values);
   return { median: quantile(sorted, 0.5), p5: quantile(sorted, 0.05), p95: quantile(sorted, 0.95) };
 }
 
+/**
+ * The values in the order sorting with (a, b) => a − b leaves them. A typed-array sort is several
+ * times faster (20,000 draws × 48 bands) and gives the same order wherever the comparator does:
+ * it differs only by putting −0 before 0 and NaN last, so with either present the comparator sorts.
+ */
+function ascending(values: readonly number[]): ArrayLike<number> {
+  const typed = Float64Array.from(values);
+  for (let k = 0; k < typed.length; k++) {
+    const v = typed[k];
+    if (v !== v || (v === 0 && 1 / v < 0)) return [...values].sort((a, b) => a - b);
+  }
+  return typed.sort();
+}
+
 /** Linear interpolation between order statistics (Hyndman & Fan 1996, definition 7). */
-export function quantile(sorted: readonly number[], p: number): number {
+export function quantile(sorted: ArrayLike<number>, p: number): number {
   const h = (sorted.length - 1) * p;
   const below = Math.floor(h);
   const above = Math.min(sorted.length - 1, below + 1);

@@ -39,6 +39,7 @@ export function isBalanced(network: Network, tolerance = BALANCE_TOLERANCE): boo
  * exit (export or respiration); otherwise I − G is singular. Throws WebError naming each one.
  */
 export function requireAnalysable(network: Network): void {
+  if (analysable.has(network)) return;
   if (!fitsDoublePrecision(network)) throw tooLarge(network);
   if (network.throughflow.every((t) => t === 0)) {
     throw new WebError('invalid', [`"${network.name}" carries no flow: give it imports (primary production) and flows`]);
@@ -60,7 +61,15 @@ export function requireAnalysable(network: Network): void {
       [`no path to an export or respiration from ${trapped.map((id) => `"${id}"`).join(', ')}: material would circulate forever`],
     );
   }
+  analysable.add(network);
 }
+
+/**
+ * Networks that passed requireAnalysable. A network never changes once built (balancing and
+ * options build new ones), so one check serves every method run on it: a Monte Carlo draw runs
+ * half a dozen methods on each of its webs, each of which checks first.
+ */
+const analysable = new WeakSet<Network>();
 
 /** Compartments with throughflow that cannot reach any export or respiration along positive flows. */
 export function compartmentsWithoutExit(network: Network): string[] {

@@ -1,6 +1,6 @@
 import type { Network } from './network';
 import { requireAnalysable } from './balance-check';
-import { inverseOfIdentityMinus } from './linear-algebra';
+import { diagonalOfInverseOfIdentityMinus } from './linear-algebra';
 
 /**
  * Finn cycling index (Finn 1976, J. theor. Biol. 56:363-380; Finn 1980), METHODS.md §5.
@@ -42,5 +42,5 @@ function diagonalOfM(network: Network): number[] {
   const { T, throughflow } = network;
   // A compartment with no throughflow passes nothing on: its row of F is zero.
   const F = T.map((row, i) => row.map((t) => (throughflow[i] > 0 ? t / throughflow[i] : 0)));
-  return inverseOfIdentityMinus(F, 'the Finn cycling index, M = (I − F)⁻¹').map((row, i) => row[i]);
+  return diagonalOfInverseOfIdentityMinus(F, 'the Finn cycling index, M = (I − F)⁻¹');
 }

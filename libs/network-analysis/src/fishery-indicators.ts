@@ -49,10 +49,11 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
   const production = embodiedProduction(network);
   const Y = new Array<number>(n).fill(0);
   for (const row of catches) row.forEach((y, i) => (Y[i] += y));
-  const total = catchIndicators(network, Y, production, trophicLevels, prices(network));
+  const priced = prices(network);
+  const total = catchIndicators(network, Y, production, trophicLevels, priced);
   const primaryProduction = z.reduce((sum, w, j) => sum + (kinds[j] === 'producer' ? w : 0), 0);
   const tonnesPerUnit = tonnesPerFlowUnit(network);
-  const perFleet = fleets.map((fleet, f): [string, FleetIndicators] => [fleet, catchIndicators(network, catches[f], production, trophicLevels, prices(network, fleet))]);
+  const perFleet = fleets.map((fleet, f): [string, FleetIndicators] => [fleet, catchIndicators(network, catches[f], production, trophicLevels, priced.filter((p) => p.fleet === fleet))]);
   requireFiniteTonnesAndValue(network, [['the total catch', total], ...perFleet.map(([fleet, c]): [string, FleetIndicators] => [`the catch of fleet "${fleet}"`, c])]);
   const ruleOfThumb =
     tonnesPerUnit === null
@@ -79,9 +80,9 @@ export function fisheryIndicators(network: Network, trophicLevels: readonly numb
  * overflow would print as null in JSON, which reads as "not given". Refused, naming the factors.
  */
 function requireFiniteTonnesAndValue(network: Network, catches: readonly [what: string, indicators: FleetIndicators][]): void {
-  const factors = `areaKm2 ${network.areaKm2} × tonnesPerUnit ${network.tonnesPerUnit}`;
+  const factors = () => `areaKm2 ${network.areaKm2} × tonnesPerUnit ${network.tonnesPerUnit}`;
   const problems = catches.flatMap(([what, c]) => [
-    ...(c.tonnes !== null && !Number.isFinite(c.tonnes) ? [`${what} in tonnes (${factors} × catch ${c.catch}) is too large to compute (beyond 1.8e308): check areaKm2 and tonnesPerUnit`] : []),
+    ...(c.tonnes !== null && !Number.isFinite(c.tonnes) ? [`${what} in tonnes (${factors()} × catch ${c.catch}) is too large to compute (beyond 1.8e308): check areaKm2 and tonnesPerUnit`] : []),
     ...(c.value !== null && !Number.isFinite(c.value) ? [`the value of ${what} (tonnes × price) is too large to compute (beyond 1.8e308): check the prices, areaKm2 and tonnesPerUnit`] : []),
   ]);
   if (problems.length > 0) throw new WebError('invalid', problems);
@@ -181,13 +182,13 @@ const MAX_PASSES = 1e9;
 /** An export below this share of its compartment's throughflow is vanishing for the message above. */
 const VANISHING_EXPORT = 1e-9;
 
-/** Price per tonne of each compartment's harvest by one fleet (or by any fleet, for the total value). */
-function prices(network: Network, fleet?: string): { compartment: number; fleet: string; price: number }[] {
-  return network.fluxes.flatMap((f) =>
-    f.kind === 'export' && f.fleet !== undefined && f.price !== undefined && (fleet === undefined || f.fleet === fleet)
-      ? [{ compartment: f.from, fleet: f.fleet, price: f.price }]
-      : [],
-  );
+/** Price per tonne of each compartment's harvest by each fleet, in flux order. */
+function prices(network: Network): { compartment: number; fleet: string; price: number }[] {
+  const priced: { compartment: number; fleet: string; price: number }[] = [];
+  for (const f of network.fluxes) {
+    if (f.kind === 'export' && f.fleet !== undefined && f.price !== undefined) priced.push({ compartment: f.from, fleet: f.fleet, price: f.price });
+  }
+  return priced;
 }
 
 function catchIndicators(

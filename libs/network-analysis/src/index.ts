@@ -11,6 +11,7 @@ export * from './fishery-indicators';
 export * from './id-map';
 export * from './information-indices';
 export * from './least-change';
+export { identityMinusTransposed, luSolve, type SquareMatrix } from './linear-algebra';
 export * from './mixed-trophic-impact';
 export * from './network';
 export * from './random';

@@ -152,10 +152,15 @@ export function withFluxes(network: Network, fluxes: readonly Flux[]): Network {
 
 /** The same fluxes with new values, in flux order. */
 export function withFluxValues(network: Network, values: readonly number[]): Network {
-  return withFluxes(
-    network,
-    network.fluxes.map((f, k) => ({ ...f, value: values[k] })),
-  );
+  const { fluxes } = network;
+  const changed: Flux[] = new Array(fluxes.length);
+  // every key spelled out rather than spread: one object shape for every flux, built fast (each
+  // Monte Carlo draw rebuilds its webs several times)
+  for (let k = 0; k < fluxes.length; k++) {
+    const f = fluxes[k];
+    changed[k] = { kind: f.kind, from: f.from, to: f.to, value: values[k], cv: f.cv, fleet: f.fleet, price: f.price };
+  }
+  return withFluxes(network, changed);
 }
 
 function assemble(frame: Frame, fluxes: readonly Flux[]): Network {
@@ -199,7 +204,8 @@ function assemble(frame: Frame, fluxes: readonly Flux[]): Network {
       outflow[i] += T[i][j];
     }
   }
-  return { ...frame, fluxes, T, z, e, r, fleets, catches, throughflow, outflow };
+  const { name, unit, areaKm2, tonnesPerUnit, ids, names, kinds, biomass, index } = frame;
+  return { name, unit, areaKm2, tonnesPerUnit, n, ids, names, kinds, biomass, index, fluxes, T, z, e, r, fleets, catches, throughflow, outflow };
 }
 
 /** Back to WEB.json: compartments unchanged, every flux with its (possibly new) value. */

@@ -6,25 +6,41 @@
 
 /** Compartments reached from a seed by following positive flows forward (seed → … → j), seeds included. */
 export function downstreamOf(T: readonly (readonly number[])[], seeds: readonly boolean[]): boolean[] {
-  return reached(T.length, seeds, (i, j) => T[i][j] > 0);
-}
-
-/** Compartments from which some seed is reached along positive flows (i → … → seed), seeds included. */
-export function upstreamOf(T: readonly (readonly number[])[], seeds: readonly boolean[]): boolean[] {
-  return reached(T.length, seeds, (i, j) => T[j][i] > 0);
-}
-
-function reached(n: number, seeds: readonly boolean[], step: (from: number, to: number) => boolean): boolean[] {
+  const n = T.length;
   const result = seeds.slice();
-  const stack = result.flatMap((isSeed, i) => (isSeed ? [i] : []));
+  const stack = seededStack(result);
   while (stack.length > 0) {
-    const i = stack.pop()!;
+    const row = T[stack.pop()!];
     for (let j = 0; j < n; j++) {
-      if (!result[j] && step(i, j)) {
+      if (!result[j] && row[j] > 0) {
         result[j] = true;
         stack.push(j);
       }
     }
   }
   return result;
+}
+
+/** Compartments from which some seed is reached along positive flows (i → … → seed), seeds included. */
+export function upstreamOf(T: readonly (readonly number[])[], seeds: readonly boolean[]): boolean[] {
+  const n = T.length;
+  const result = seeds.slice();
+  const stack = seededStack(result);
+  while (stack.length > 0) {
+    const i = stack.pop()!;
+    for (let j = 0; j < n; j++) {
+      if (!result[j] && T[j][i] > 0) {
+        result[j] = true;
+        stack.push(j);
+      }
+    }
+  }
+  return result;
+}
+
+// two loops rather than one walk taking a step function: these run several times per Monte Carlo draw
+function seededStack(seeds: readonly boolean[]): number[] {
+  const stack: number[] = [];
+  for (let i = 0; i < seeds.length; i++) if (seeds[i]) stack.push(i);
+  return stack;
 }
