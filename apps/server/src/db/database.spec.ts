@@ -9,7 +9,9 @@ import { DataDirInUseError } from './data-dir-lock';
 import { openDatabase } from './database';
 import { users } from './schema';
 
-// PGlite on disk: these tests use real data folders (the other specs use in-memory copies).
+// PGlite on disk: these tests use real data folders (the other specs use in-memory copies). Each
+// opening of a fresh folder runs initdb (seconds, more on a busy machine): hence the longer limits.
+const ON_DISK = 120_000;
 let scratch: string;
 beforeEach(() => {
   scratch = mkdtempSync(join(tmpdir(), 'seinework-db-'));
@@ -32,7 +34,7 @@ describe('the embedded database on disk', () => {
     // seeded once: a database with users is left alone
     expect(await seedDemo(second, 'development')).toEqual({ seeded: false });
     await second.close();
-  });
+  }, ON_DISK);
 
   it('refuses a second opening of a data folder in use, and frees it on close', async () => {
     const dataDir = join(scratch, 'data');
@@ -42,7 +44,7 @@ describe('the embedded database on disk', () => {
     await first.close();
     const again = await openDatabase({ dataDir });
     await again.close();
-  });
+  }, ON_DISK);
 
   it('takes over a lock left by a process that no longer runs', async () => {
     const dataDir = join(scratch, 'data');
@@ -51,7 +53,7 @@ describe('the embedded database on disk', () => {
     writeFileSync(join(dataDir, 'seinework.lock'), '4194305');
     const database = await openDatabase({ dataDir });
     await database.close();
-  });
+  }, ON_DISK);
 });
 
 describe('one server per data folder', () => {
@@ -93,5 +95,5 @@ describe('one server per data folder', () => {
     first.child.kill('SIGTERM');
     await first.exited;
     expect(existsSync(join(dataDir, 'seinework.lock'))).toBe(false);
-  }, 120_000);
+  }, ON_DISK);
 });
