@@ -19,7 +19,7 @@ const KIND_LABEL = { flow: 'Flow', import: 'Import', export: 'Export', respirati
         <p>No number changes by more than rounding.</p>
       } @else {
         <p>{{ rows().length }} {{ rows().length === 1 ? 'number changes' : 'numbers change' }}. Nothing is saved until you take the changes and save a new draft.</p>
-        <div class="table-scroll">
+        <div class="table-scroll" tabindex="0" role="region" aria-label="Changes made by balancing, scrollable">
           <table aria-label="Changes made by balancing">
             <thead>
               <tr>

@@ -17,7 +17,7 @@ import type { CompartmentBalance } from './imbalance';
           <span class="bad">{{ unbalancedCount() }} of {{ balances().length }} compartments {{ unbalancedCount() === 1 ? 'is' : 'are' }} out of balance.</span>
         }
       </p>
-      <div class="table-scroll">
+      <div class="table-scroll" tabindex="0" role="region" aria-label="Balance table, scrollable">
         <table aria-label="Balance of each compartment">
           <thead>
             <tr>

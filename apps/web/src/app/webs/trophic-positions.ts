@@ -16,7 +16,7 @@ export interface TrophicPosition {
   imports: [MatTableModule, DecimalPipe],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <div class="table-scroll">
+    <div class="table-scroll" tabindex="0" role="region" aria-label="Trophic positions, scrollable">
       <table mat-table [dataSource]="positions()" class="positions" aria-label="Trophic positions">
         <ng-container matColumnDef="name">
           <th mat-header-cell *matHeaderCellDef>Compartment</th>

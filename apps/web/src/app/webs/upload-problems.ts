@@ -13,7 +13,7 @@ const TABLE_ORDER = ['file', 'web', 'compartments', 'flows', 'imports', 'exports
     <section class="problems" role="alert" aria-labelledby="upload-problems-title">
       <h2 id="upload-problems-title" tabindex="-1">Nothing was stored: {{ headline() }}</h2>
       <p>Fix {{ problems().length === 1 ? 'it' : 'them' }} in your file and upload it again. Rows are counted as your spreadsheet shows them, the header row being row 1.</p>
-      <div class="table-scroll">
+      <div class="table-scroll" tabindex="0" role="region" aria-label="Problems, scrollable">
         <table mat-table [dataSource]="ordered()" aria-label="Problems found in the upload">
           <ng-container matColumnDef="table">
             <th mat-header-cell *matHeaderCellDef>Table</th>
