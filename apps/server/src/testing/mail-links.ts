@@ -4,7 +4,7 @@ import type { TestAgent } from './test-app';
 /** Reading e-mail back in tests: through the admin outbox API, as an administrator would. */
 
 /** The outbox once it holds at least `count` messages (mail may still be on its way when a route answers). */
-export async function waitForOutbox(admin: TestAgent, count: number, timeoutMs = 5_000): Promise<Page<OutboxMessage>> {
+export async function waitForOutbox(admin: TestAgent, count: number, timeoutMs = 15_000): Promise<Page<OutboxMessage>> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const response = await admin.get('/api/admin/outbox').query({ pageSize: 200 });
