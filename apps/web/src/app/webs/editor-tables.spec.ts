@@ -35,6 +35,14 @@ describe('editor tables', () => {
     );
   });
 
+  it('name a second flow between the same compartments against the later row', () => {
+    const tables = webToTables(demo as Web);
+    const copy = { ...tables.flows[0], key: -1 };
+    const { problems } = tablesToWeb({ ...tables, flows: [...tables.flows, copy] }, header(demo as Web));
+    const { from, to } = demo.flows[0];
+    expect(problems).toEqual([expect.objectContaining({ table: 'flows', row: demo.flows.length + 1, field: 'to', problem: `a flow from “${from}” to “${to}” is already in row 1` })]);
+  });
+
   it('leave optional cells out of WEB.json when they are empty and flag empty required ones', () => {
     const tables = webToTables(demo as Web);
     const blank = { ...tables, flows: tables.flows.map((row, k) => (k === 0 ? { ...row, cells: { ...row.cells, value: '', cv: '' } } : row)) };

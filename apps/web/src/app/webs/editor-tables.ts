@@ -84,6 +84,27 @@ export function webToTables(web: Web): EditorTables {
   };
 }
 
+/** The engine refuses a second flow between the same pair, a second import into or respiration of one compartment. */
+const REPEAT_KEYS: Partial<Record<EditorTable, { fields: readonly string[]; blame: string; what: (cells: Record<string, string>) => string }>> = {
+  flows: { fields: ['from', 'to'], blame: 'to', what: (c) => `a flow from “${c['from']}” to “${c['to']}”` },
+  imports: { fields: ['to'], blame: 'to', what: (c) => `an import into “${c['to']}”` },
+  respiration: { fields: ['from'], blame: 'from', what: (c) => `respiration of “${c['from']}”` },
+};
+
+function flagRepeats(tables: EditorTables, problems: CellProblem[]): void {
+  for (const [table, rule] of Object.entries(REPEAT_KEYS) as [EditorTable, NonNullable<(typeof REPEAT_KEYS)[EditorTable]>][]) {
+    const firstRow = new Map<string, number>();
+    tables[table].forEach((row, index) => {
+      const cells = Object.fromEntries(rule.fields.map((f) => [f, (row.cells[f] ?? '').trim()]));
+      if (Object.values(cells).some((v) => v === '')) return;
+      const key = rule.fields.map((f) => cells[f]).join('\u0000');
+      const first = firstRow.get(key);
+      if (first === undefined) firstRow.set(key, index + 1);
+      else problems.push({ table, key: row.key, row: index + 1, field: rule.blame, problem: `${rule.what(cells)} is already in row ${first}` });
+    });
+  }
+}
+
 /** Reads a typed number: blanks and text become NaN so that sums skip them and the cell is flagged. */
 function readNumber(text: string): number {
   const trimmed = text.trim().replace(',', '.');
@@ -122,6 +143,7 @@ export function tablesToWeb(tables: EditorTables, header: { name: string; unit: 
       }
       return item;
     });
+  flagRepeats(tables, problems);
   const web = {
     name: header.name,
     unit: header.unit,
