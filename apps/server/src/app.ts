@@ -17,7 +17,9 @@ import { mountMailRoutes } from './mail/mail-routes';
 import { webRoutes } from './webs/web-routes';
 import { optionStoreRoutes } from './options/option-routes';
 import type { Mailer } from './mail/mailer';
-import type { DrawPool } from '@seinework/draw-pool';
+import { createDrawPool, type DrawPool } from '@seinework/draw-pool';
+import { createRunQueue } from './runs/run-queue';
+import { runRoutes } from './runs/run-routes';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
@@ -68,6 +70,10 @@ export async function createApp(settings: AppSettings): Promise<Express> {
     mountMailRoutes(app, { db: settings.database.db, sessions, mailer: settings.mailer, publicOrigin });
     app.use('/api/webs', webRoutes({ db: settings.database.db, engine }));
     app.use('/api', optionStoreRoutes({ db: settings.database.db, engine }));
+    // the queue of option runs; main.ts starts its worker loop, tests drain it (runs/run-queue.ts, runQueueOf)
+    const runQueue = createRunQueue({ db: settings.database.db, engine, drawPool: settings.drawPool ?? createDrawPool(undefined, { keepAlive: false }) });
+    app.locals['runQueue'] = runQueue;
+    app.use('/api', runRoutes({ db: settings.database.db, queue: runQueue }));
   }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.originalUrl.split('?')[0]}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {

@@ -8,6 +8,7 @@ import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
 import { createMailer } from '../mail/mailer';
 import { outboxStore } from '../mail/outbox';
 import { DEMO_PASSWORD, demoEmail } from '../seed/demo-users';
+import { runQueueOf, type RunQueue } from '../runs/run-queue';
 import { createTestDatabase } from './test-database';
 
 export const TEST_ORIGIN = 'http://127.0.0.1:4300';
@@ -23,6 +24,8 @@ export interface TestApp {
   signInAs(role: Role): Promise<TestAgent>;
   /** An agent that is not signed in (it carries the Origin header too). */
   anonymous(): TestAgent;
+  /** The app's run queue, its worker loop not started: `runQueue.drain()` computes the waiting runs. */
+  readonly runQueue: RunQueue;
   close(): Promise<void>;
 }
 
@@ -47,6 +50,7 @@ export async function createTestApp(overrides: Partial<AppSettings> = {}): Promi
     database,
     smtp,
     anonymous,
+    runQueue: runQueueOf(app),
     async signInAs(role) {
       const agent = anonymous();
       const response = await agent.post('/api/auth/sign-in').send({ email: demoEmail(role), password: DEMO_PASSWORD });
