@@ -24,3 +24,10 @@ export class EngineOverBudget extends Error {
 function formatSeconds(ms: number): string {
   return ms >= 1000 ? `${Number((ms / 1000).toFixed(1))} s` : `${ms} ms`;
 }
+
+/** The server is shutting down: the engine's workers were stopped under a running request. */
+export class EngineStopping extends Error {
+  constructor() {
+    super('The server is shutting down: send the request again in a moment');
+  }
+}

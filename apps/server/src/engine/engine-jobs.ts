@@ -4,7 +4,7 @@ import { createDrawPool, createWorkerPool, isAbortError, type DrawPool, type Ser
 import { summarise, type UncertaintySummary } from '@seinework/harvest-options';
 import type { BalancingMethod } from '@seinework/network-analysis';
 import { RequestError } from '../http/errors';
-import { EngineOverBudget, EngineRefusal } from './engine-errors';
+import { EngineOverBudget, EngineRefusal, EngineStopping } from './engine-errors';
 import type { CheckedDraws, EngineAnswer, EngineInput, EngineTask, RequestText } from './engine-task';
 
 /**
@@ -79,6 +79,7 @@ export function createEngineJobs(settings: EngineJobsSettings = {}): EngineJobs 
   const drawPool = settings.drawPool ?? ownDrawPool!;
   const budgetMs = settings.budgetMs ?? API_TIME_BUDGET_MS;
   let pending = 0;
+  let stopping = false;
 
   /** Runs `work` under the budget and the caller's signal, turning a budget abort into EngineOverBudget. */
   async function job(signal: AbortSignal | undefined, work: (signal: AbortSignal) => Promise<Buffer>): Promise<Buffer> {
@@ -93,6 +94,7 @@ export function createEngineJobs(settings: EngineJobsSettings = {}): EngineJobs 
       return await work(combined);
     } catch (error) {
       if (budget.aborted && (isAbortError(error) || combined.aborted)) throw new EngineOverBudget(budgetMs);
+      if (stopping) throw new EngineStopping();
       throw error;
     } finally {
       leftovers.abort();
@@ -152,6 +154,7 @@ export function createEngineJobs(settings: EngineJobsSettings = {}): EngineJobs 
       return pending;
     },
     destroy: async () => {
+      stopping = true;
       await Promise.all([workers.destroy(), ownDrawPool?.destroy()]);
     },
   };

@@ -8,6 +8,7 @@ import { generateWeb } from '../../../../libs/network-analysis/src/testing/gener
 import { createApp } from '../app';
 import { createEngineJobs, type EngineJobs, type EngineJobsSettings } from './engine-jobs';
 import { LEFT_OUT_KEYS } from './analysis-tables';
+import { EngineStopping } from './engine-errors';
 
 /**
  * Heavy and abandoned requests (issue 6, items 2 and 4), checked by structure only — which answer
@@ -171,6 +172,15 @@ describe('limits on waiting and working', () => {
     }
   });
 
+  it('refuses a job the engine was stopped under (shutting down) with EngineStopping, not an internal error', async () => {
+    const engine = createEngineJobs({ threads: 1 });
+    const job = engine.analyzeOffThread(heavyWeb);
+    const refused = expect(job).rejects.toBeInstanceOf(EngineStopping);
+    await new Promise((resolve) => setTimeout(resolve, 100));
+    await engine.destroy();
+    await refused;
+  });
+
   it('stops a request that runs past its time budget and says so, naming the budget', async () => {
     const running = await start({ budgetMs: 300 });
     try {
@@ -191,7 +201,11 @@ describe('limits on waiting and working', () => {
       // both pools started (a cold start may itself run past the budget: try until it fits), so that the budget falls among the 5,000 draws (seconds of work)
       const warmUp = { web: cone, option: { ...detritivoreFishery, uncertainty: { draws: 20, cv: 0.1, seed: 1 } } };
       await vi.waitFor(async () => expect((await post(running.base, '/api/options/run', warmUp)).status).toBe(200), { timeout: 30_000, interval: 500 });
-      const response = await post(running.base, '/api/options/run', { web: cone, option: manyDraws }, { headers: { accept: 'application/x-ndjson' } });
+      // 5,000 draws of a 40-compartment web: far more work than the budget allows, its first chunk well within it
+      const web = generateWeb({ compartments: 40, seed: 4, fleets: 2 });
+      const landed = web.exports.find((e) => e.fleet !== undefined)!;
+      const option = { name: 'cut', adjustments: [{ type: 'scale-catch', fleet: landed.fleet, compartment: landed.from, percent: -10 }], uncertainty: { draws: 5000, cv: 0.1, seed: 2 } };
+      const response = await post(running.base, '/api/options/run', { web, option }, { headers: { accept: 'application/x-ndjson' } });
       const lines = (await response.text()).trim().split('\n').map((line) => JSON.parse(line));
       expect(lines[0]).toHaveProperty('progress');
       expect(lines.at(-1).error).toMatch(/^The engine stopped after 4 s/);

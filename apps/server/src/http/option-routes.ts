@@ -1,5 +1,5 @@
 import { Router, type Response } from 'express';
-import { EngineOverBudget } from '../engine/engine-errors';
+import { EngineOverBudget, EngineStopping } from '../engine/engine-errors';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { clientSignal, sendJsonText } from './client-signal';
 import { bodyText } from './json-body';
@@ -43,8 +43,9 @@ export function optionRoutes(engine: EngineJobs): Router {
       if (!stream.started) throw error;
       // a client that went away is not told; anything else ends the stream with a line saying what happened
       if (!signal.aborted) {
-        if (!(error instanceof EngineOverBudget)) console.error(error);
-        stream.line(JSON.stringify({ error: error instanceof EngineOverBudget ? error.message : 'Something went wrong on the server while drawing' }));
+        const told = error instanceof EngineOverBudget || error instanceof EngineStopping;
+        if (!told) console.error(error);
+        stream.line(JSON.stringify({ error: told ? error.message : 'Something went wrong on the server while drawing' }));
       }
       response.end();
     }
