@@ -64,7 +64,8 @@ describe('one server per data folder', () => {
   });
 
   function startServer(dataDir: string) {
-    const child = spawn(process.execPath, [join(root, 'node_modules/tsx/dist/cli.mjs'), join(root, 'apps/server/src/main.ts')], {
+    // `node --import tsx` runs the server in this one process, so killing it leaves no grandchild behind
+    const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'apps/server/src/main.ts')], {
       cwd: root,
       env: { ...process.env, DATA_DIR: dataDir, PORT: '0', NODE_ENV: 'development', DATABASE_URL: '' },
       stdio: ['ignore', 'pipe', 'pipe'],
@@ -89,7 +90,6 @@ describe('one server per data folder', () => {
     expect(first.output()).toContain('Demo accounts created');
     const second = startServer(dataDir);
     expect(await second.exited).toBe(1);
-    // tsx runs the server in a child process of its own: the PID named is that one's
     expect(second.output()).toMatch(new RegExp(`The data folder ${dataDir} is already in use by another Seinework server \\(process \\d+\\)`));
     expect(first.child.exitCode).toBeNull();
     first.child.kill('SIGTERM');
