@@ -6,7 +6,6 @@ import { readConfig } from './config';
 import { openDatabase } from './db/database';
 import { DataDirInUseError } from './db/data-dir-lock';
 import { seedDemo } from './seed/seed-demo';
-import { finishDemoRuns } from './seed/demo-options';
 import { startMail } from './mail/start-mail';
 import { DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users';
 
@@ -43,13 +42,6 @@ const app = await createApp({
 });
 const server = app.listen(port, host, () => {
   console.log(`Seinework is running at http://${host}:${port}/`);
-  // the demo options' runs (500 draws each) are computed once the server answers, not before
-  if (config.demoMode) {
-    finishDemoRuns(database.db, drawPool).then(
-      (finished) => finished > 0 && console.log(`Demo harvest options: ${finished} runs computed`),
-      (error: unknown) => console.error('Demo harvest option runs were not computed:', error),
-    );
-  }
 });
 
 // Stop cleanly: close the connections, then the draw workers and the database (which frees the data folder).

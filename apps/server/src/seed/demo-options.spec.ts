@@ -1,10 +1,11 @@
 import { eq } from 'drizzle-orm';
 import type { Comparison, OptionSummary } from '@seinework/contracts';
-import { optionUncertainty, runOption } from '@seinework/harvest-options';
+import { optionUncertainty } from '@seinework/harvest-options';
 import { options, runs } from '../db/schema';
 import { createTestApp, type TestApp } from '../testing/test-app';
 import { brannockBay } from '../webs/test-webs';
-import { finishDemoRuns, seedDemoOptions } from './demo-options';
+import { runQueueOf } from '../runs/run-queue';
+import { seedDemoOptions } from './demo-options';
 import { seedDemoWebs } from './demo-webs';
 
 let t: TestApp;
@@ -17,19 +18,19 @@ afterEach(() => t.close());
 const FEW_DRAWS = { draws: 12, cv: 0.25, seed: 20261202 };
 
 describe('demo harvest options', () => {
-  it('seeds five options on the demo baseline, computes their runs as the scenario command does, and shares one for council review', async () => {
+  it('seeds five options on the demo baseline with queued runs that the run queue computes, and shares one for council review', async () => {
     await seedDemoWebs(t.database.db);
     await seedDemoOptions(t.database.db, FEW_DRAWS);
     expect((await t.database.db.select().from(runs)).map((r) => r.status)).toEqual(['queued', 'queued', 'queued', 'queued', 'queued']);
-    expect(await finishDemoRuns(t.database.db)).toBe(5);
-    expect(await finishDemoRuns(t.database.db)).toBe(0);
+    expect(await runQueueOf(t.app).drain()).toBe(5);
 
     const stored = await t.database.db.select().from(runs).innerJoin(options, eq(options.id, runs.optionId));
     for (const { runs: run, options: option } of stored) {
-      expect(run).toMatchObject({ status: 'done', error: null, draws: 12, progressDone: 12, leaseOwner: null });
-      const asked = { name: option.name, response: option.response, adjustments: option.adjustments, uncertainty: FEW_DRAWS };
-      const expected = { ...runOption(brannockBay, asked), uncertainty: await optionUncertainty(brannockBay, asked, FEW_DRAWS) };
-      expect(run.result).toEqual(JSON.parse(JSON.stringify(expected)));
+      expect(run).toMatchObject({ status: 'done', error: null, draws: 12, cv: 0.25, seed: 20261202 });
+      expect(run.inputs).toEqual({ webId: option.webId, versionId: option.versionId, option: { name: option.name, response: option.response, adjustments: option.adjustments }, uncertainty: FEW_DRAWS });
+      // the seeded inputs are the option's own: its draws, redone here, give the stored bands
+      const expected = await optionUncertainty(brannockBay, option, FEW_DRAWS);
+      expect((run.result as { uncertainty: unknown }).uncertainty).toEqual(JSON.parse(JSON.stringify(expected)));
     }
 
     const analyst = await t.signInAs('analyst');
@@ -56,17 +57,5 @@ describe('demo harvest options', () => {
     // the forage-fish cut lands less in every draw
     expect(totalCatch.values[0]).toMatchObject({ exceedsUncertainty: true });
     expect(totalCatch.values[0]!.difference).toBeLessThan(0);
-  }, 120_000);
-
-  it('takes up a demo run left running by a stopped server once its lease ran out, and leaves a live lease alone', async () => {
-    await seedDemoWebs(t.database.db);
-    await seedDemoOptions(t.database.db, FEW_DRAWS);
-    const [left, held] = await t.database.db.select().from(runs).limit(2);
-    await t.database.db.update(runs).set({ status: 'running', leaseOwner: 'gone', leaseExpiresAt: new Date(Date.now() - 1000) }).where(eq(runs.id, left!.id));
-    await t.database.db.update(runs).set({ status: 'running', leaseOwner: 'busy', leaseExpiresAt: new Date(Date.now() + 60_000) }).where(eq(runs.id, held!.id));
-    expect(await finishDemoRuns(t.database.db)).toBe(4);
-    const after = await t.database.db.select().from(runs);
-    expect(after.find((r) => r.id === left!.id)).toMatchObject({ status: 'done', attempts: 1 });
-    expect(after.find((r) => r.id === held!.id)).toMatchObject({ status: 'running', leaseOwner: 'busy' });
   }, 120_000);
 });

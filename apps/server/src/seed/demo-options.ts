@@ -1,13 +1,12 @@
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { and, eq, inArray, lt, or, sql } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { harvestOptionSchema, type HarvestOption, type UncertaintySettings } from '@seinework/contracts';
-import type { DrawRunner } from '@seinework/harvest-options';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { options, runs, shares, users, webs, webVersions, type RunInputs } from '../db/schema';
-import { computeRunDocument, ENGINE_VERSION } from './demo-run-document';
+import { ENGINE_VERSION } from './demo-run-document';
 import { demoEmail } from './demo-users';
 import { DEMO_WEB_PLACE } from './demo-webs';
 
@@ -15,8 +14,9 @@ import { DEMO_WEB_PLACE } from './demo-webs';
  * The demo harvest options (invented, on the demo baseline): the four of seeds/options/ and a
  * poorer phytoplankton year, each with a run with uncertainty, the forage-fish quota cut shared for
  * council review by the demo analyst. The seed's transaction stores the options, their runs as
- * queued and the share; the runs are computed after the server listens (finishDemoRuns), so that a
- * first start answers at once and the council's pages fill within seconds.
+ * queued and the share; the run queue (runs/run-queue.ts) computes them like any other once the
+ * server has started, so that a first start answers at once and the council's pages fill within
+ * seconds.
  */
 
 const OPTIONS_DIR = resolve(import.meta.dirname, '../../../../seeds/options');
@@ -43,7 +43,7 @@ const DEMO_OPTIONS: readonly DemoOption[] = [
   },
 ];
 
-/** 500 draws, cv 0.25 and a fixed seed: bands worth reading, a few seconds per option on the server's draw pool. */
+/** 500 draws, cv 0.25 and a fixed seed: bands worth reading, about a second per option on the server's draw pool. */
 export const DEMO_UNCERTAINTY: UncertaintySettings = { draws: 500, cv: 0.25, seed: 20261202 };
 
 function demoOptions(uncertainty: UncertaintySettings): { option: HarvestOption; purpose: string; shared: boolean }[] {
@@ -74,48 +74,4 @@ export async function seedDemoOptions(db: Db, uncertainty: UncertaintySettings =
       await recordAudit(db, { actorId: analyst.id, action: 'option.shared', subject: `option:${optionId}`, detail: `Demo harvest option "${option.name}" shared for council review (run ${runId})` });
     }
   }
-}
-
-const LEASE_OWNER = 'demo-seed';
-// a demo run takes seconds: a run left by a stopped server is taken up again at the next start a minute later
-const LEASE_MS = 60_000;
-
-/**
- * Computes the demo options' runs that are still waiting (queued, or left running by a stop whose
- * lease ran out), one at a time: each is claimed with a lease, as the queue's workers claim runs,
- * so that a queue worker and this never both compute one. Returns how many it finished.
- */
-export async function finishDemoRuns(db: Db, pool?: DrawRunner): Promise<number> {
-  const demoOptionIds = db
-    .select({ id: options.id })
-    .from(options)
-    .innerJoin(users, eq(users.id, options.createdBy))
-    .innerJoin(webs, eq(webs.id, options.webId))
-    .where(and(eq(users.email, demoEmail('analyst')), eq(webs.place, DEMO_WEB_PLACE)));
-  const waiting = await db
-    .select({ id: runs.id })
-    .from(runs)
-    .where(and(inArray(runs.optionId, demoOptionIds), or(eq(runs.status, 'queued'), and(eq(runs.status, 'running'), lt(runs.leaseExpiresAt, new Date())))))
-    .orderBy(runs.createdAt, runs.id);
-  let finished = 0;
-  for (const { id } of waiting) {
-    const [claimed] = await db
-      .update(runs)
-      .set({ status: 'running', leaseOwner: LEASE_OWNER, leaseExpiresAt: new Date(Date.now() + LEASE_MS), heartbeatAt: new Date(), startedAt: new Date(), attempts: sql`${runs.attempts} + 1` })
-      .where(and(eq(runs.id, id), or(eq(runs.status, 'queued'), and(eq(runs.status, 'running'), lt(runs.leaseExpiresAt, new Date())))))
-      .returning();
-    if (!claimed) continue;
-    const started = performance.now();
-    const outcome = await computeRunDocument(db, claimed.inputs, pool).then(
-      (result) => ({ status: 'done' as const, result, error: null }),
-      (error: unknown) => ({ status: 'failed' as const, result: null, error: error instanceof Error ? error.message : String(error) }),
-    );
-    const stored = await db
-      .update(runs)
-      .set({ ...outcome, progressDone: outcome.status === 'done' ? claimed.draws : 0, finishedAt: new Date(), runMs: Math.round(performance.now() - started), leaseOwner: null, leaseExpiresAt: null })
-      .where(and(eq(runs.id, id), eq(runs.leaseOwner, LEASE_OWNER)))
-      .returning({ id: runs.id });
-    if (outcome.status === 'done') finished += stored.length;
-  }
-  return finished;
 }

@@ -11,7 +11,7 @@ export class DemoRefusedError extends Error {}
 
 /**
  * Demo data for a fresh database: one user per role, the demo web and its harvest options (whose
- * runs main.ts computes after the server listens: finishDemoRuns).
+ * runs wait in the run queue for the server to compute them).
  * Runs once: a database that already has users is left alone. Refused in production, where
  * demo accounts with a published password must never exist.
  */
