@@ -1,14 +1,15 @@
 import { runTool } from './support/run-command';
 
-/** `npm run --silent bench -- --json WEB.json` (issue contract): one JSON document, nothing else. Timings themselves are not asserted. */
+/** `npm run --silent bench -- --json WEB.json` (issue contracts): one JSON document, nothing else. Timings themselves are not asserted. */
 describe('npm run bench -- --json', () => {
-  it('prints { analyzeMs } for a given web', () => {
+  it('prints { analyzeMs, analyzeWithoutCyclesMs } for a given web', () => {
     const result = runTool('bench.ts', ['--json', 'tests/fixtures/cone-spring.json']);
     expect(result.stderr).toBe('');
     expect(result.status).toBe(0);
     const output = JSON.parse(result.stdout);
-    expect(Object.keys(output)).toEqual(['analyzeMs']);
+    expect(Object.keys(output)).toEqual(['analyzeMs', 'analyzeWithoutCyclesMs']);
     expect(output.analyzeMs).toBeGreaterThan(0);
+    expect(output.analyzeWithoutCyclesMs).toBeGreaterThan(0);
   });
 
   it('exits 2 with one line for a missing web', () => {

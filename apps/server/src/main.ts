@@ -8,6 +8,7 @@ import { DataDirInUseError } from './db/data-dir-lock';
 import { seedDemo } from './seed/seed-demo';
 import { startMail } from './mail/start-mail';
 import { DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users';
+import { runQueueOf } from './runs/run-queue';
 
 const config = readConfig();
 const { port, host } = config;
@@ -40,6 +41,9 @@ const app = await createApp({
   demoMode: config.demoMode,
   mailer: mail.mailer,
 });
+// runs queued by anyone (this process or another on the same PostgreSQL) are computed here
+const runQueue = runQueueOf(app);
+runQueue.start();
 const server = app.listen(port, host, () => {
   console.log(`Seinework is running at http://${host}:${port}/`);
 });
@@ -47,7 +51,8 @@ const server = app.listen(port, host, () => {
 // Stop cleanly: close the connections, then the draw workers and the database (which frees the data folder).
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
-    server.close(() => void Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())]));
+    // a run being computed goes back to the queue before the workers and the database stop
+    server.close(() => void runQueue.stop().then(() => Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())])));
     server.closeAllConnections();
   });
 }

@@ -1,3 +1,4 @@
+import type { IncomingMessage } from 'node:http';
 import { count, eq, inArray } from 'drizzle-orm';
 import type { RunDetail, RunSummary } from '@seinework/contracts';
 import { runTool, temporaryFile } from '../../../../tests/support/run-command';
@@ -220,11 +221,13 @@ describe('following a run', () => {
   }, 120_000);
 });
 
-function text(response: NodeJS.ReadableStream & { setEncoding(e: string): void }, callback: (error: Error | null, body: string) => void): void {
+/** The event stream's text as the body (superagent hands the parser the Node response stream). */
+function text(response: unknown, callback: (error: Error | null, body: string) => void): void {
+  const stream = response as IncomingMessage;
   let body = '';
-  response.setEncoding('utf8');
-  response.on('data', (chunk: string) => (body += chunk));
-  response.on('end', () => callback(null, body));
+  stream.setEncoding('utf8');
+  stream.on('data', (chunk: string) => (body += chunk));
+  stream.on('end', () => callback(null, body));
 }
 
 async function until(condition: () => Promise<boolean>, timeoutMs = 60_000): Promise<void> {
