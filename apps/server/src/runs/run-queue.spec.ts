@@ -40,7 +40,7 @@ async function startRun(optionId: string, body: object = {}): Promise<string> {
 }
 
 const row = async (id: string) => (await t.database.db.select().from(runs).where(eq(runs.id, id)))[0]!;
-const detail = async (id: string) => (await baseline.analyst.get(`/api/runs/${id}`)).body as RunDetail;
+const detail = async (id: string) => (await baseline.analyst.get(`/api/runs/${id}?tables=all`)).body as RunDetail;
 
 /** Runs left queued by a test would be computed by the next one's drain: each test leaves none. */
 afterEach(async () => {
@@ -92,6 +92,14 @@ describe('computing runs', () => {
     const printed = runTool('scenario.ts', [webFile, optionFile]);
     expect(printed.status).toBe(0);
     expect(run.result).toEqual(JSON.parse(printed.stdout));
+    // by default without the n² tables, as the analysis routes answer; read again, the same
+    const summary = await baseline.analyst.get(`/api/runs/${id}`);
+    const document = summary.body.result as Record<string, Record<string, unknown>>;
+    expect(document['baseline']!).not.toHaveProperty('totalDependency');
+    expect(document['baseline']!['tst']).toBe((run.result as typeof document)['baseline']!['tst']);
+    expect(document['uncertainty']).toEqual((run.result as typeof document)['uncertainty']);
+    expect((await baseline.analyst.get(`/api/runs/${id}`)).text).toBe(summary.text);
+    expect((await baseline.analyst.get(`/api/runs/${id}?tables=some`)).status).toBe(400);
   }, 120_000);
 
   it('the same inputs and seed give the same result, bit for bit; another seed another', async () => {

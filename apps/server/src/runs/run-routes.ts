@@ -4,13 +4,17 @@ import { runBodySchema, type CurrentUser, type RunSummary } from '@seinework/con
 import { currentUser, requireAction } from '../auth/guards';
 import type { Db } from '../db/database';
 import { requireAnyAction } from '../options/read-guard';
+import { sendJsonText } from '../http/client-signal';
+import { tableSelection } from '../http/table-selection';
 import { parseInput } from '../validate';
+import { resultText } from './result-text';
 import type { RunQueue } from './run-queue';
 import { RunService, TERMINAL } from './run-service';
 
 /**
  * Runs of stored harvest options (ARCH8; DEVELOPERS.md, "Runs and their queue"), mounted under /api:
- * start (202, queued), read, follow as server-sent events, cancel, list an option's runs.
+ * start (202, queued), read (the result without the n² tables unless `?tables=all`, as the
+ * analysis routes answer), follow as server-sent events, cancel, list an option's runs.
  */
 
 const id = z.string().min(1).max(64);
@@ -37,7 +41,12 @@ export function runRoutes({ db, queue }: { db: Db; queue: RunQueue }): Router {
 
   router.get('/runs/:id', readsRuns, async (request, response) => {
     const { id: runId } = parseInput(address, request.params, 'address');
-    response.json(await service.detail(currentUser(response), runId));
+    const tables = tableSelection(request);
+    const detail = await service.detail(currentUser(response), runId);
+    if (detail.status !== 'done') return void response.json(detail);
+    // the stored document as text, spliced in: a stored run is read without parsing or serialising it
+    const head = JSON.stringify(detail);
+    sendJsonText(response, Buffer.from(`${head.slice(0, -1)},"result":${await resultText(db, runId, tables)}}`));
   });
 
   router.post('/runs/:id/cancel', requireAction('options.edit'), async (request, response) => {

@@ -1,5 +1,5 @@
 import { randomInt, randomUUID } from 'node:crypto';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns } from 'drizzle-orm';
 import { type CurrentUser, type RunDetail, type RunSummary, type UncertaintySettings } from '@seinework/contracts';
 import { DEFAULT_CV } from '@seinework/network-analysis';
 import { recordAudit } from '../audit/audit-log';
@@ -25,6 +25,9 @@ export interface RunSettingsBody {
 }
 
 type RunRow = typeof runs.$inferSelect;
+
+/** Every column but the result document, which routes read as text (result-text.ts). */
+const { result: _result, ...briefColumns } = getTableColumns(runs);
 
 export const TERMINAL = new Set<RunRow['status']>(['done', 'failed', 'cancelled']);
 
@@ -86,14 +89,14 @@ export class RunService {
     return (await this.visible(user, id)).summary;
   }
 
-  async detail(user: CurrentUser, id: string): Promise<RunDetail> {
+  /** The run without its result document (GET /api/runs/:id adds it as text when done). */
+  async detail(user: CurrentUser, id: string): Promise<Omit<RunDetail, 'result'>> {
     const { row, summary } = await this.visible(user, id);
     const queuedMs = row.startedAt ? row.startedAt.getTime() - row.createdAt.getTime() : null;
     return {
       ...summary,
       inputs: { webId: row.inputs.webId, versionId: row.inputs.versionId, option: row.inputs.option, uncertainty: row.inputs.uncertainty },
       timings: row.startedAt || row.runMs !== null ? { queuedMs, runMs: row.runMs } : null,
-      ...(row.status === 'done' ? { result: row.result } : {}),
     };
   }
 
@@ -120,13 +123,14 @@ export class RunService {
 
   private async visible(user: CurrentUser, id: string): Promise<{ row: RunRow; summary: RunSummary }> {
     const [found] = await this.db
-      .select({ run: runs, createdBy: users.name })
+      .select({ run: briefColumns, createdBy: users.name })
       .from(runs)
       .innerJoin(options, eq(options.id, runs.optionId))
       .innerJoin(users, eq(users.id, runs.createdBy))
       .where(and(eq(runs.id, id), visibleOption(user)));
     if (!found) throw new RequestError(404, 'No such run');
-    return { row: found.run, summary: runSummary(found.run, found.createdBy) };
+    const row = { ...found.run, result: null };
+    return { row, summary: runSummary(row, found.createdBy) };
   }
 }
 
