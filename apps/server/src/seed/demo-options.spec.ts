@@ -18,9 +18,12 @@ afterEach(() => t.close());
 const FEW_DRAWS = { draws: 12, cv: 0.25, seed: 20261202 };
 
 describe('demo harvest options', () => {
-  it('seeds five options on the demo baseline with queued runs that the run queue computes, and shares one for council review', async () => {
-    await seedDemoWebs(t.database.db);
-    await seedDemoOptions(t.database.db, FEW_DRAWS);
+  it('seeds five options on the demo baseline with queued runs that the run queue computes, and shares three for council review', async () => {
+    // in one transaction, as seedDemo does on a first start
+    await t.database.db.transaction(async (tx) => {
+      await seedDemoWebs(tx);
+      await seedDemoOptions(tx, FEW_DRAWS);
+    });
     expect((await t.database.db.select().from(runs)).map((r) => r.status)).toEqual(['queued', 'queued', 'queued', 'queued', 'queued']);
     expect(await runQueueOf(t.app).drain()).toBe(5);
 
@@ -48,7 +51,13 @@ describe('demo harvest options', () => {
     ]);
     expect(all.items.every((o) => o.frozen && o.latestRun?.status === 'done' && o.purpose.length > 0)).toBe(true);
     const shared = (await council.get(base)).body as { items: OptionSummary[] };
-    expect(shared.items.map((o) => [o.name, o.shares.map((s) => s.audience)])).toEqual([['Cut the forage-fish quota by 40 %', ['council']]]);
+    expect(shared.items.map((o) => [o.name, o.shares.map((s) => s.audience)])).toEqual([
+      ['Cut the forage-fish quota by 40 %', ['council']],
+      ['Close the set-gillnet fleet', ['council']],
+      ['Raise the mid-water predator quota by 25 %', ['council']],
+    ]);
+    const councilComparison = await council.get(`/api/comparisons?runs=${shared.items.map((o) => o.latestRun!.id).join(',')}`);
+    expect(councilComparison.status).toBe(200);
 
     const comparison = (await analyst.get(`/api/comparisons?runs=${all.items.map((o) => o.latestRun!.id).join(',')}`)).body as Comparison;
     expect(comparison.runs).toHaveLength(5);

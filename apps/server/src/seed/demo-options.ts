@@ -12,8 +12,9 @@ import { DEMO_WEB_PLACE } from './demo-webs';
 
 /**
  * The demo harvest options (invented, on the demo baseline): the four of seeds/options/ and a
- * poorer phytoplankton year, each with a run with uncertainty, the forage-fish quota cut shared for
- * council review by the demo analyst. The seed's transaction stores the options, their runs as
+ * poorer phytoplankton year, each with a run with uncertainty; three of them (the forage-fish cut,
+ * the gillnet closure and the predator quota rise) shared for council review by the demo analyst, so
+ * that a council member has options to compare on a first start, and two not, to share in a demo. The seed's transaction stores the options, their runs as
  * queued and the share; the run queue (runs/run-queue.ts) computes them like any other once the
  * server has started, so that a first start answers at once and the council's pages fill within
  * seconds.
@@ -30,9 +31,9 @@ interface DemoOption {
 
 const DEMO_OPTIONS: readonly DemoOption[] = [
   { file: 'forage-fish-quota-cut.json', purpose: 'Leave more forage fish in the water for seabirds and the mid-water predators that eat them.', shared: true },
-  { file: 'close-set-gillnet.json', purpose: 'End the by-catch of marine mammals and seabirds in set gillnets; the demersal predators they land are left to the bottom trawl.' },
+  { file: 'close-set-gillnet.json', purpose: 'End the by-catch of marine mammals and seabirds in set gillnets; the demersal predators they land are left to the bottom trawl.', shared: true },
   { file: 'filter-feeder-dredge.json', purpose: 'A new shellfish fishery on a stock nobody fishes today: what would it take from the rest of the bay?' },
-  { file: 'raise-midwater-predator-quota.json', purpose: 'The hook-and-line fleet asks for a larger quota: can the bay carry it?' },
+  { file: 'raise-midwater-predator-quota.json', purpose: 'The hook-and-line fleet asks for a larger quota: can the bay carry it?', shared: true },
   {
     option: {
       name: 'A poorer phytoplankton year (production −15 %)',
@@ -62,15 +63,18 @@ export async function seedDemoOptions(db: Db, uncertainty: UncertaintySettings =
     .innerJoin(webs, eq(webs.id, webVersions.webId))
     .where(and(eq(webs.place, DEMO_WEB_PLACE), eq(webVersions.status, 'published')));
   if (!analyst || !baseline) throw new Error('The demo analyst and the demo baseline must be seeded before the demo options');
-  for (const { option, purpose, shared } of demoOptions(uncertainty)) {
+  // one transaction gives every row the same now(): the options' order is set here instead
+  const start = Date.now();
+  for (const [position, { option, purpose, shared }] of demoOptions(uncertainty).entries()) {
+    const createdAt = new Date(start + position);
     const optionId = randomUUID();
     const runId = randomUUID();
-    await db.insert(options).values({ id: optionId, ...baseline, name: option.name, purpose, response: option.response, adjustments: option.adjustments, uncertainty, createdBy: analyst.id });
+    await db.insert(options).values({ id: optionId, ...baseline, name: option.name, purpose, response: option.response, adjustments: option.adjustments, uncertainty, createdBy: analyst.id, createdAt, updatedAt: createdAt });
     await recordAudit(db, { actorId: analyst.id, action: 'option.created', subject: `option:${optionId}`, detail: `Demo harvest option "${option.name}"` });
     const inputs: RunInputs = { ...baseline, option: { name: option.name, response: option.response, adjustments: option.adjustments }, uncertainty };
-    await db.insert(runs).values({ id: runId, optionId, inputs, draws: uncertainty.draws, cv: uncertainty.cv, seed: uncertainty.seed, engineVersion: ENGINE_VERSION, progressTotal: uncertainty.draws, createdBy: analyst.id });
+    await db.insert(runs).values({ id: runId, optionId, inputs, draws: uncertainty.draws, cv: uncertainty.cv, seed: uncertainty.seed, engineVersion: ENGINE_VERSION, progressTotal: uncertainty.draws, createdBy: analyst.id, createdAt });
     if (shared) {
-      await db.insert(shares).values({ id: randomUUID(), optionId, audience: 'council', runId, sharedBy: analyst.id });
+      await db.insert(shares).values({ id: randomUUID(), optionId, audience: 'council', runId, sharedBy: analyst.id, sharedAt: createdAt });
       await recordAudit(db, { actorId: analyst.id, action: 'option.shared', subject: `option:${optionId}`, detail: `Demo harvest option "${option.name}" shared for council review (run ${runId})` });
     }
   }
