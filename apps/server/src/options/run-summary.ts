@@ -2,7 +2,7 @@ import type { RunSummary } from '@seinework/contracts';
 import type { runs } from '../db/schema';
 
 /** A runs row (with its starter's name) as the API shows it. */
-export function runSummary(row: typeof runs.$inferSelect, createdBy: string): RunSummary {
+export function runSummary(row: Omit<typeof runs.$inferSelect, 'result'>, createdBy: string): RunSummary {
   return {
     id: row.id,
     optionId: row.optionId,
