@@ -1,4 +1,5 @@
 import { and, count, eq, isNull } from 'drizzle-orm';
+import fc from 'fast-check';
 import type { Comparison, OptionSummary, PreferenceSummary } from '@seinework/contracts';
 import { auditEvents, preferences, shares } from '../db/schema';
 import { createTestApp, type TestApp } from '../testing/test-app';
@@ -146,6 +147,28 @@ describe('preferences', () => {
     );
     expect(await auditCount('preference.recorded')).toBe(before + 2);
   });
+
+  it('keeps, whatever the order of recording, one current preference per member per baseline: the last one', async () => {
+    const { baseline, forage, gillnet } = await twoSharedOptions();
+    const members = { council: await t.signInAs('council'), admin: await t.signInAs('admin') };
+    const step = fc.record({ member: fc.constantFrom('council' as const, 'admin' as const), option: fc.constantFrom(forage, gillnet) });
+    // the database keeps its preferences from one sequence to the next: so does the model
+    const last = new Map<string, { id: string; option: string }>();
+    await fc.assert(
+      fc.asyncProperty(fc.array(step, { minLength: 1, maxLength: 5 }), async (steps) => {
+        for (const { member, option } of steps) {
+          const recorded = await members[member].post(`/api/options/${option}/preferences`).send({ reason: `${member} prefers ${option}` });
+          expect(recorded.status).toBe(201);
+          last.set(member, { id: recorded.body.id, option });
+        }
+        const current = await t.database.db.select().from(preferences).where(and(eq(preferences.versionId, baseline.versionId), isNull(preferences.supersededAt)));
+        expect(current.map((p) => p.id).sort()).toEqual([...last.values()].map((p) => p.id).sort());
+        const listed = [...((await members.council.get(`/api/options/${forage}/preferences`)).body.items as PreferenceSummary[]), ...((await members.council.get(`/api/options/${gillnet}/preferences`)).body.items as PreferenceSummary[])];
+        expect(listed.map((p) => [p.id, p.optionId]).sort()).toEqual([...last.values()].map((p) => [p.id, p.option]).sort());
+      }),
+      { numRuns: 6 },
+    );
+  }, 120_000);
 
   it('refuses a preference on an option not shared with the member (404), other roles (403), bad bodies (400) and runs of other baselines (422)', async () => {
     const { baseline, forage, forageShare } = await twoSharedOptions();
