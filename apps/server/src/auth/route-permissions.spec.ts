@@ -75,6 +75,12 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'POST', path: '/api/options/:id/preferences', access: 'preferences.record' },
   { method: 'GET', path: '/api/options/:id/preferences', access: OPTION_READERS },
   { method: 'GET', path: '/api/comparisons', access: OPTION_READERS },
+  // runs and their queue (runs-queue)
+  { method: 'POST', path: '/api/options/:id/runs', access: 'options.edit' },
+  { method: 'GET', path: '/api/options/:id/runs', access: OPTION_READERS },
+  { method: 'GET', path: '/api/runs/:id', access: OPTION_READERS },
+  { method: 'POST', path: '/api/runs/:id/cancel', access: 'options.edit' },
+  { method: 'GET', path: '/api/runs/:id/events', access: OPTION_READERS },
 ];
 
 /** Every route of the app as `METHOD /path`, read from Express's router (mounted routers included). */
