@@ -86,7 +86,11 @@ if (process.argv[2] === '--json') {
   printTable([
     ...engineRows(),
     ...harvest.map((h) => underMs(h.name, h.medianMs, h.limitMs)),
-    ...api.map((a) => underMs(a.name, a.ms, a.limitMs)),
+    ...api.map((a) =>
+      a.unit === 'req/s'
+        ? { name: a.name, result: `${Math.round(a.value).toLocaleString('en')} req/s`, target: '' }
+        : { ...underMs(a.failed ? `${a.name} (${a.failed} not 2xx)` : a.name, a.value, a.limitMs), ...(a.failed ? { met: false } : {}) },
+    ),
     ...server.map((s) => underMs(s.name, s.ms, s.limitMs)),
   ]);
 }

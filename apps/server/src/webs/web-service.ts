@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, count, desc, eq, ilike, inArray, max, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, ilike, max, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
-import type { CurrentUser, Page, VersionDetail, VersionSummary, Web, WebDetail, WebListQuery, WebSummary } from '@seinework/contracts';
+import type { CurrentUser, Page, VersionDetail, VersionStatus, VersionSummary, Web, WebDetail, WebListQuery, WebSummary } from '@seinework/contracts';
 import { createNetwork, imbalances, parseWeb } from '@seinework/network-analysis';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
@@ -38,6 +38,18 @@ export function checkedWeb(input: unknown, where = ''): Web {
   return web;
 }
 
+/** A row of the list of webs; `published` is there only for those who read drafts (list). */
+interface ListRow {
+  web: typeof webs.$inferSelect;
+  latest: { id: string; number: number; status: VersionStatus; createdAt: Date; publishedAt: Date | null; publishedBy: string | null };
+  published?: { id: string | null; number: number | null; publishedAt: Date | null; publishedBy: string | null } | null;
+  total: number;
+}
+
+interface PreparedList {
+  execute(values: { pattern?: string; status?: string; limit: number; offset: number }): Promise<ListRow[]>;
+}
+
 const creator = alias(users, 'creator');
 const publisher = alias(users, 'publisher');
 
@@ -51,46 +63,107 @@ export class WebService {
     return this.cache.get(versionId, () => readWeb(this.db, versionId));
   }
 
+  /**
+   * One page of the webs this person may see, each with its latest visible version and its newest
+   * published one (and who published it), in one query: the versions come from lateral subqueries
+   * (a web someone may see is one with a version they may see: the inner lateral join is that
+   * condition), the total from a window over the page. The query is prepared once per shape (role,
+   * sort, direction, filter and status given or not): building it costs more than running it.
+   */
   async list(user: CurrentUser, query: WebListQuery): Promise<Page<WebSummary>> {
-    const conditions: (SQL | undefined)[] = [visibleWeb(user)];
-    if (query.filter) {
-      const pattern = `%${query.filter.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      conditions.push(or(ilike(webs.name, pattern), ilike(webs.place, pattern)));
+    const shape = `${user.role}_${query.sort}_${query.direction}_${query.filter ? 'f' : ''}${query.status ? 's' : ''}`;
+    let prepared = this.listQueries.get(shape);
+    if (!prepared) {
+      prepared = this.listQuery(user, query, `web_list_${shape}`);
+      this.listQueries.set(shape, prepared);
     }
-    if (query.status) {
-      const latestStatus = sql`(select ${webVersions.status} from ${webVersions} where ${and(eq(webVersions.webId, webs.id), visibleVersion(user))} order by ${webVersions.number} desc limit 1)`;
-      conditions.push(sql`${latestStatus} = ${query.status}`);
-    }
-    const where = and(...conditions);
-    const order = query.direction === 'asc' ? asc : desc;
-    // The total comes with the page (one query); only a page past the end asks for it separately.
-    const page = await this.db
-      .select({ web: webs, total: sql<number>`cast(count(*) over () as integer)` })
-      .from(webs)
-      .where(where)
-      // People expect "alpha" before "Bravo": text sorts ignore case.
-      .orderBy(order(query.sort === 'updatedAt' ? webs.updatedAt : sql`lower(${webs[query.sort]})`), asc(webs.id))
-      .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize);
-    const rows = page.map((p) => p.web);
-    const total = page[0]?.total ?? (await this.db.select({ total: count() }).from(webs).where(where))[0].total;
-    const versions = rows.length === 0 ? [] : await this.versionRows(and(inArray(webVersions.webId, rows.map((w) => w.id)), visibleVersion(user)));
-    const items = rows.map((web): WebSummary => {
-      const own = versions.filter((v) => v.webId === web.id);
-      const latest = own.reduce((a, b) => (b.number > a.number ? b : a));
-      const published = own.filter((v) => v.status === 'published').reduce<(typeof own)[number] | undefined>((a, b) => (a === undefined || b.number > a.number ? b : a), undefined);
+    const pattern = query.filter ? `%${query.filter.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : undefined;
+    const page = await prepared.execute({ pattern, status: query.status, limit: query.pageSize, offset: (query.page - 1) * query.pageSize });
+    // a page past the end has no row to carry the total: then it is asked for alone
+    const total =
+      page[0]?.total ??
+      (
+        await this.db
+          .select({ total: count() })
+          .from(webs)
+          .innerJoinLateral(this.latestVisible(user), sql`true`)
+          .where(this.listFilters(query, { pattern, status: query.status }))
+      )[0].total;
+    const items = page.map(({ web, latest, published }): WebSummary => {
+      // those who do not read drafts see published versions only: their latest is their newest published
+      const p = published === undefined ? latest : published;
       return {
         id: web.id,
         name: web.name,
         place: web.place,
         period: web.period,
         unit: web.unit,
-        latestVersion: { id: latest.id, number: latest.number, status: latest.status, createdAt: latest.createdAt },
-        published: published ? { id: published.id, number: published.number, publishedBy: published.publishedBy!, publishedAt: published.publishedAt! } : null,
+        latestVersion: { id: latest.id, number: latest.number, status: latest.status, createdAt: latest.createdAt.toISOString() },
+        published: p?.id ? { id: p.id, number: p.number!, publishedBy: p.publishedBy!, publishedAt: p.publishedAt!.toISOString() } : null,
         updatedAt: web.updatedAt.toISOString(),
       };
     });
     return { items, total };
+  }
+
+  private readonly listQueries = new Map<string, PreparedList>();
+
+  /** The newest version of each web this person may see, with who published it (if it is published). */
+  private latestVisible(user: CurrentUser) {
+    return this.db
+      .select({ id: webVersions.id, number: webVersions.number, status: webVersions.status, createdAt: webVersions.createdAt, publishedAt: webVersions.publishedAt, publishedBy: publisher.name })
+      .from(webVersions)
+      .leftJoin(publisher, eq(publisher.id, webVersions.publishedBy))
+      .where(and(eq(webVersions.webId, webs.id), visibleVersion(user)))
+      .orderBy(desc(webVersions.number))
+      .limit(1)
+      .as('latest');
+  }
+
+  /** The filter on name or place, and on the status of the latest visible version (the `latest` subquery); values or placeholders. */
+  private listFilters(query: WebListQuery, values: { pattern: unknown; status: unknown }): SQL | undefined {
+    const pattern = values.pattern as string;
+    return and(
+      query.filter ? or(ilike(webs.name, pattern), ilike(webs.place, pattern)) : undefined,
+      query.status ? sql`"latest"."status" = ${values.status}` : undefined,
+    );
+  }
+
+  private listQuery(user: CurrentUser, query: WebListQuery, name: string): PreparedList {
+    const latest = this.latestVisible(user);
+    const fields = {
+      web: webs,
+      latest: { id: latest.id, number: latest.number, status: latest.status, createdAt: latest.createdAt, publishedAt: latest.publishedAt, publishedBy: latest.publishedBy },
+      total: sql<number>`cast(count(*) over () as integer)`,
+    };
+    const where = this.listFilters(query, { pattern: sql.placeholder('pattern'), status: sql.placeholder('status') });
+    const order = query.direction === 'asc' ? asc : desc;
+    // People expect "alpha" before "Bravo": text sorts ignore case.
+    const orderBy = [order(query.sort === 'updatedAt' ? webs.updatedAt : sql`lower(${webs[query.sort]})`), asc(webs.id)];
+    const limit = sql.placeholder('limit') as unknown as number;
+    const offset = sql.placeholder('offset') as unknown as number;
+    if (!readsDrafts(user)) {
+      // only those who read drafts can have a newest published version other than their latest
+      return this.db.select(fields).from(webs).innerJoinLateral(latest, sql`true`).where(where).orderBy(...orderBy).limit(limit).offset(offset).prepare(name);
+    }
+    const published = this.db
+      .select({ id: webVersions.id, number: webVersions.number, publishedAt: webVersions.publishedAt, publishedBy: publisher.name })
+      .from(webVersions)
+      .leftJoin(publisher, eq(publisher.id, webVersions.publishedBy))
+      .where(and(eq(webVersions.webId, webs.id), eq(webVersions.status, 'published')))
+      .orderBy(desc(webVersions.number))
+      .limit(1)
+      .as('published');
+    return this.db
+      .select({ ...fields, published: { id: published.id, number: published.number, publishedAt: published.publishedAt, publishedBy: published.publishedBy } })
+      .from(webs)
+      .innerJoinLateral(latest, sql`true`)
+      .leftJoinLateral(published, sql`true`)
+      .where(where)
+      .orderBy(...orderBy)
+      .limit(limit)
+      .offset(offset)
+      .prepare(name);
   }
 
   async create(user: CurrentUser, input: NewWeb): Promise<Created> {
