@@ -1,10 +1,11 @@
 import { Agent, request } from 'node:http';
 
 /**
- * The load of the API benchmark: an open loop of evenly spaced requests (one every 1000 / rate ms,
- * each on a free keep-alive connection, never waiting for earlier answers), as independent users
- * arriving at a steady rate would send them. A request's latency runs from the moment it was due,
- * not from when it could be sent, so a client that falls behind cannot hide the server's delays.
+ * The load of the API benchmark: an open loop of requests arriving as independent users send them
+ * — a Poisson process of the given rate (exponential gaps, from a fixed seed so that runs compare),
+ * each request on a free keep-alive connection, never waiting for earlier answers. A request's
+ * latency runs from the moment it was due, not from when it could be sent, so a client that falls
+ * behind cannot hide the server's delays.
  *
  * (autocannon's `overallRate` lets each connection send its share of the second back to back at
  * the start of every second: bursts, not a steady rate; autocannon is kept for the sequential
@@ -40,11 +41,27 @@ export function send(agent: Agent, origin: string, target: Target): Promise<numb
   });
 }
 
-/** `rate` requests per second, evenly spaced, for `seconds`; resolves when every answer is in. */
-export async function paced(origin: string, target: Target, rate: number, seconds: number): Promise<PacedResult> {
+/** When each request is due, ms from the start: a Poisson process of `rate` per second over `seconds`. */
+export function arrivals(rate: number, seconds: number, seed = 1): number[] {
+  // mulberry32: small, seeded, plenty for spacing requests
+  let state = seed >>> 0;
+  const uniform = () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+  const times: number[] = [];
+  for (let at = -Math.log(1 - uniform()) * (1000 / rate); at < seconds * 1000; at += -Math.log(1 - uniform()) * (1000 / rate)) times.push(at);
+  return times;
+}
+
+/** About `rate` requests per second (Poisson arrivals) for `seconds`; resolves when every answer is in. */
+export async function paced(origin: string, target: Target, rate: number, seconds: number, seed = 1): Promise<PacedResult> {
   const agent = new Agent({ keepAlive: true, maxSockets: Infinity });
-  const interval = 1000 / rate;
-  const total = Math.round(rate * seconds);
+  const due = arrivals(rate, seconds, seed);
+  const total = due.length;
   const latencies: number[] = [];
   const answers: Promise<void>[] = [];
   let failed = 0;
@@ -53,12 +70,12 @@ export async function paced(origin: string, target: Target, rate: number, second
   await new Promise<void>((done) => {
     const tick = () => {
       // every request due by now goes out, so a late timer delays nothing it could have sent
-      while (next < total && start + next * interval <= performance.now()) {
-        const due = start + next * interval;
+      while (next < total && start + due[next]! <= performance.now()) {
+        const dueAt = start + due[next]!;
         answers.push(
           send(agent, origin, target).then(
             (status) => {
-              latencies.push(performance.now() - due);
+              latencies.push(performance.now() - dueAt);
               if (status < 200 || status > 299) failed++;
             },
             () => void failed++,
@@ -66,13 +83,13 @@ export async function paced(origin: string, target: Target, rate: number, second
         );
         next++;
       }
-      if (next < total) setTimeout(tick, Math.max(0, start + next * interval - performance.now()));
+      if (next < total) setTimeout(tick, Math.max(0, start + due[next]! - performance.now()));
       else done();
     };
     tick();
   });
   await Promise.all(answers);
-  const elapsed = performance.now() - start;
+  const elapsed = Math.max(performance.now() - start, seconds * 1000);
   agent.destroy();
   latencies.sort((a, b) => a - b);
   return { latencies, answeredPerSecond: (latencies.length / elapsed) * 1000, failed };

@@ -1,5 +1,5 @@
 import { randomInt, randomUUID } from 'node:crypto';
-import { and, desc, eq, getTableColumns } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns, sql } from 'drizzle-orm';
 import { type CurrentUser, type RunDetail, type RunSummary, type UncertaintySettings } from '@seinework/contracts';
 import { DEFAULT_CV } from '@seinework/network-analysis';
 import { recordAudit } from '../audit/audit-log';
@@ -121,16 +121,29 @@ export class RunService {
     return { items, total: items.length };
   }
 
+  /** The run if this person may see it; asked on every read of a run (and every progress event), so prepared per role. */
   private async visible(user: CurrentUser, id: string): Promise<{ row: RunRow; summary: RunSummary }> {
-    const [found] = await this.db
+    let prepared = this.visibleQueries.get(user.role);
+    if (!prepared) {
+      prepared = this.visibleQuery(user);
+      this.visibleQueries.set(user.role, prepared);
+    }
+    const [found] = await prepared.execute({ id });
+    if (!found) throw new RequestError(404, 'No such run');
+    const row = { ...found.run, result: null };
+    return { row, summary: runSummary(row, found.createdBy) };
+  }
+
+  private readonly visibleQueries = new Map<string, ReturnType<RunService['visibleQuery']>>();
+
+  private visibleQuery(user: CurrentUser) {
+    return this.db
       .select({ run: briefColumns, createdBy: users.name })
       .from(runs)
       .innerJoin(options, eq(options.id, runs.optionId))
       .innerJoin(users, eq(users.id, runs.createdBy))
-      .where(and(eq(runs.id, id), visibleOption(user)));
-    if (!found) throw new RequestError(404, 'No such run');
-    const row = { ...found.run, result: null };
-    return { row, summary: runSummary(row, found.createdBy) };
+      .where(and(eq(runs.id, sql.placeholder('id')), visibleOption(user)))
+      .prepare(`visible_run_${user.role}`);
   }
 }
 

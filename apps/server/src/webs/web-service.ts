@@ -282,16 +282,27 @@ export class WebService {
     return web;
   }
 
-  /** A version of this web the person may see, or 404 (a draft hidden from them included). */
+  /** A version of this web the person may see, or 404 (a draft hidden from them included); asked on every read of a version, so prepared per role. */
   async visibleVersion(user: CurrentUser, webId: string, versionId: string): Promise<VersionSummary> {
-    const [version] = await this.versionRows(and(eq(webVersions.id, versionId), eq(webVersions.webId, webId), visibleVersion(user)));
+    let prepared = this.visibleVersionQueries.get(user.role);
+    if (!prepared) {
+      prepared = this.versionRowsQuery(and(eq(webVersions.id, sql.placeholder('versionId')), eq(webVersions.webId, sql.placeholder('webId')), visibleVersion(user))).prepare(`visible_version_${user.role}`);
+      this.visibleVersionQueries.set(user.role, prepared);
+    }
+    const [version] = (await prepared.execute({ versionId, webId })).map(versionSummary);
     if (!version) throw new RequestError(404, readsDrafts(user) ? 'No such version of this web' : 'No such published version of this web');
     const { webId: _, ...summary } = version;
     return summary;
   }
 
+  private readonly visibleVersionQueries = new Map<string, ReturnType<ReturnType<WebService['versionRowsQuery']>['prepare']>>();
+
   private async versionRows(where: SQL | undefined): Promise<(VersionSummary & { webId: string })[]> {
-    const rows = await this.db
+    return (await this.versionRowsQuery(where)).map(versionSummary);
+  }
+
+  private versionRowsQuery(where: SQL | undefined) {
+    return this.db
       .select({
         id: webVersions.id,
         webId: webVersions.webId,
@@ -308,6 +319,9 @@ export class WebService {
       .innerJoin(creator, eq(creator.id, webVersions.createdBy))
       .leftJoin(publisher, eq(publisher.id, webVersions.publishedBy))
       .where(where);
-    return rows.map((row) => ({ ...row, createdAt: row.createdAt.toISOString(), publishedAt: row.publishedAt?.toISOString() ?? null }));
   }
+}
+
+function versionSummary<T extends { createdAt: Date; publishedAt: Date | null }>(row: T): Omit<T, 'createdAt' | 'publishedAt'> & { createdAt: string; publishedAt: string | null } {
+  return { ...row, createdAt: row.createdAt.toISOString(), publishedAt: row.publishedAt?.toISOString() ?? null };
 }
