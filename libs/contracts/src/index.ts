@@ -8,3 +8,4 @@ export * from './webs-api';
 export * from './api-limits';
 export * from './duplicate-keys';
 export * from './options-api';
+export * from './discussion-api';

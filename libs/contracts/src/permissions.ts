@@ -35,15 +35,21 @@ export const ACTIONS = [
   'options.read-shared',
   /** Record a preference among compared options (on an option shared with the member). */
   'preferences.record',
+  /** Comment on an option one may read (stakeholders: only while it is open for public comment). */
+  'comments.post',
+  /** Hide a comment with a reason (moderation). */
+  'comments.moderate',
+  /** Print and download briefs of options and comparisons. */
+  'briefs.read',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
 const PERMISSIONS: Readonly<Record<Role, readonly Action[]>> = {
   admin: ACTIONS,
-  analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish', 'options.read-all', 'options.edit', 'options.share'],
-  council: ['webs.read-published', 'options.read-shared', 'preferences.record'],
-  staff: ['webs.read-published', 'options.read-shared'],
-  stakeholder: [],
+  analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish', 'options.read-all', 'options.edit', 'options.share', 'comments.post', 'briefs.read'],
+  council: ['webs.read-published', 'options.read-shared', 'preferences.record', 'comments.post'],
+  staff: ['webs.read-published', 'options.read-shared', 'comments.post', 'comments.moderate', 'briefs.read'],
+  stakeholder: ['comments.post'],
 };
 
 /** Whether a role may take an action: the single rule behind every server check and every hidden button. */
