@@ -2,3 +2,4 @@
 export * from './accounts';
 export * from './webs';
 export * from './options';
+export * from './discussion';
