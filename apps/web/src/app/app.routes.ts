@@ -15,6 +15,9 @@ export const routes: Routes = [
       { path: '', pathMatch: 'full', redirectTo: 'webs' },
       { path: 'webs', canActivate: [allowedTo('webs.read-published')], loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
       { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
+      { path: 'discussions', loadChildren: () => import('./discussion/discussion-routes').then((m) => m.discussionRoutes) },
+      // the link in "a new comment on an option you follow" e-mails
+      { path: 'options/:optionId/discussion', redirectTo: '/discussions/:optionId' },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
       { path: '**', redirectTo: 'webs' },

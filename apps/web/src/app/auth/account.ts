@@ -10,11 +10,12 @@ import { newPasswordValidators, passwordHint, passwordsMatch, tooShort } from '.
 import { problemMessage } from './problem-message';
 import { RoleLabelPipe } from './role-label';
 import { SessionStore } from './session-store';
+import { NotificationSettings } from '../discussion/notification-settings';
 
-/** `/account`: who is signed in, and changing the password. */
+/** `/account`: who is signed in, changing the password, and which e-mails to get. */
 @Component({
   selector: 'sw-account',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, RoleLabelPipe],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, RoleLabelPipe, NotificationSettings],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './account.html',
   styleUrl: './auth-page.scss',
