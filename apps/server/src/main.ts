@@ -1,6 +1,6 @@
 import { resolve } from 'node:path';
 import { createDrawPool } from '@seinework/draw-pool';
-import { createApp } from './app';
+import { closingSoonOf, createApp, notificationsOf } from './app';
 import { createEngineJobs } from './engine/engine-jobs';
 import { readConfig } from './config';
 import { openDatabase } from './db/database';
@@ -44,6 +44,9 @@ const app = await createApp({
 // runs queued by anyone (this process or another on the same PostgreSQL) are computed here
 const runQueue = runQueueOf(app);
 runQueue.start();
+// public comment closing within a day: reminders once at start, then hourly
+const closingSoon = closingSoonOf(app);
+closingSoon.start();
 const server = app.listen(port, host, () => {
   console.log(`Seinework is running at http://${host}:${port}/`);
 });
@@ -52,7 +55,8 @@ const server = app.listen(port, host, () => {
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
     // a run being computed goes back to the queue before the workers and the database stop
-    server.close(() => void runQueue.stop().then(() => Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())])));
+    closingSoon.stop();
+    server.close(() => void Promise.all([runQueue.stop(), notificationsOf(app).queue.idle()]).then(() => Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())])));
     server.closeAllConnections();
   });
 }
