@@ -8,6 +8,7 @@ import { DataDirInUseError } from './db/data-dir-lock';
 import { seedDemo } from './seed/seed-demo';
 import { startMail } from './mail/start-mail';
 import { DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users';
+import { DEMO_DISCUSSION_USERS } from './seed/demo-discussion';
 import { runQueueOf } from './runs/run-queue';
 
 const config = readConfig();
@@ -23,7 +24,7 @@ const database = await openDatabase(config.databaseUrl ? { databaseUrl: config.d
   throw error;
 });
 if (config.demoMode && (await seedDemo(database, config.nodeEnv)).seeded) {
-  console.log(`Demo accounts created (password ${DEMO_PASSWORD}): ${DEMO_USERS.map((u) => u.email).join(', ')}`);
+  console.log(`Demo accounts created (password ${DEMO_PASSWORD}): ${[...DEMO_USERS, ...DEMO_DISCUSSION_USERS].map((u) => u.email).join(', ')}`);
 }
 
 const mail = await startMail({ smtpUrl: config.smtpUrl, demoMode: config.demoMode, db: database.db, from: process.env['MAIL_FROM'] });
