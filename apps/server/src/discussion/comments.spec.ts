@@ -152,7 +152,7 @@ describe('hiding', () => {
   it('shows others a placeholder, the author and staff the text and the reason; logs the reason', async () => {
     const shared = await sharedOption(t, 'public');
     const analyst = shared.baseline.analyst;
-    const posted = await stakeholder.post(commentsUrl(shared)).send({ text: 'Something rude' });
+    const posted = await stakeholder.post(commentsUrl(shared)).send({ text: 'Something rude', anchor: { kind: 'compartment', key: 'seabirds' } });
     expect((await stakeholder.post(`/api/comments/${posted.body.id}/hide`).send({ reason: 'No' })).status).toBe(403);
     expect((await staff.post(`/api/comments/${posted.body.id}/hide`).send({ reason: '' })).status).toBe(400);
 
@@ -162,9 +162,9 @@ describe('hiding', () => {
     expect((await staff.post(`/api/comments/${posted.body.id}/hide`).send({ reason: 'Again' })).status).toBe(409);
 
     const as = async (agent: TestAgent) => ((await agent.get(commentsUrl(shared))).body as CommentPage).items.find((c) => c.id === posted.body.id) as CommentItem;
-    for (const other of [council, analyst]) expect(await as(other)).toMatchObject({ hidden: true, text: null, hiddenReason: null });
+    for (const other of [council, analyst]) expect(await as(other)).toMatchObject({ hidden: true, text: null, hiddenReason: null, anchor: null });
     expect(await as(stakeholder)).toMatchObject({ hidden: true, text: 'Something rude', hiddenReason: 'Personal remarks about a named fisher', editable: false });
-    expect(await as(staff)).toMatchObject({ hidden: true, text: 'Something rude', hiddenReason: 'Personal remarks about a named fisher' });
+    expect(await as(staff)).toMatchObject({ hidden: true, text: 'Something rude', hiddenReason: 'Personal remarks about a named fisher', anchor: { kind: 'compartment', key: 'seabirds' } });
     // the placeholder still counts
     expect(((await council.get(commentsUrl(shared))).body as CommentPage).total).toBe(1);
     expect((await stakeholder.patch(`/api/comments/${posted.body.id}`).send({ text: 'Something kind' })).status).toBe(409);

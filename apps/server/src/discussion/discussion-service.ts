@@ -294,7 +294,8 @@ export class DiscussionService {
       parentId: comment.parentId,
       author: { id: comment.authorId, name: authorName, role: authorRole },
       text: shown ? comment.text : null,
-      anchor: comment.anchor ?? null,
+      // a placeholder says nothing of what the comment was about
+      anchor: shown ? (comment.anchor ?? null) : null,
       hidden,
       hiddenReason: hidden && (own || moderator) ? comment.hiddenReason : null,
       createdAt: comment.createdAt.toISOString(),

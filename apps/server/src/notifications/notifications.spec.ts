@@ -3,9 +3,9 @@ import request from 'supertest';
 import { closingSoonOf, notificationsOf } from '../app';
 import { follows, notificationPreferences, shareNotices, unsubscribeTokens } from '../db/schema';
 import { hashOneTimeToken } from '../auth/one-time-token';
-import { DAY_MS, mailTo, share, sharedOption, unsubscribeToken } from '../discussion/test-discussion';
+import { DAY_MS, mailTo, RESULT, share, sharedOption, unsubscribeToken } from '../discussion/test-discussion';
 import type { Mailer } from '../mail/mailer';
-import { createOption, publishedBaseline, storeRun, userId } from '../options/test-options';
+import { createOption, gillnetClosure, publishedBaseline, storeRun, userId } from '../options/test-options';
 import { demoEmail } from '../seed/demo-users';
 import { createTestApp, TEST_ORIGIN, type TestAgent, type TestApp } from '../testing/test-app';
 
@@ -122,6 +122,20 @@ describe('new comment', () => {
     expect(await mine()).toHaveLength(0);
     await staff.post(`/api/options/${shared.optionId}/comments`).send({ text: 'Public note', audience: 'public' });
     expect(await mine()).toHaveLength(1);
+  });
+
+  it('escapes the option name on the unsubscribe page', async () => {
+    const baseline = await publishedBaseline(t);
+    const optionId = await createOption(baseline, { ...gillnetClosure, name: 'Gillnets <script>alert(1)</script> & "more"' });
+    await storeRun(t.database.db, optionId, RESULT);
+    await share(baseline, optionId, 'public', new Date(Date.now() + 3 * DAY_MS));
+    await council.put(`/api/options/${optionId}/follow`);
+    await stakeholder.post(`/api/options/${optionId}/comments`).send({ text: 'Hello' });
+    const message = (await mailTo(t, COUNCIL, /^A new comment/)).filter((m) => m.text.includes(optionId)).at(-1)!;
+    const page = await openLink(unsubscribeToken(message.text));
+    expect(page.status).toBe(200);
+    expect(page.text).toContain('Gillnets &lt;script&gt;alert(1)&lt;/script&gt; &amp; &quot;more&quot;');
+    expect(page.text).not.toContain('<script>');
   });
 
   it('answers an unknown or malformed token with a 404 page', async () => {
