@@ -20,6 +20,10 @@ import type { Mailer } from './mail/mailer';
 import { createDrawPool, type DrawPool } from '@seinework/draw-pool';
 import { createRunQueue } from './runs/run-queue';
 import { runRoutes } from './runs/run-routes';
+import { discussionRoutes } from './discussion/discussion-routes';
+import { closingSoonScheduler, type ClosingSoonScheduler } from './notifications/closing-soon-scheduler';
+import { Notifications } from './notifications/notification-service';
+import { notificationRoutes } from './notifications/notification-routes';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
@@ -47,6 +51,16 @@ export interface AppSettings {
   readonly mailer?: Mailer;
 }
 
+/** The app's notices (their queue: `await notificationsOf(app).queue.idle()` in tests). */
+export function notificationsOf(app: Express): Notifications {
+  return app.locals['notifications'] as Notifications;
+}
+
+/** The hourly check for public comment closing within a day. */
+export function closingSoonOf(app: Express): ClosingSoonScheduler {
+  return app.locals['closingSoon'] as ClosingSoonScheduler;
+}
+
 export async function createApp(settings: AppSettings): Promise<Express> {
   const app = express();
   app.disable('x-powered-by');
@@ -68,8 +82,15 @@ export async function createApp(settings: AppSettings): Promise<Express> {
     // the session reader comes first: every stateful router below sees the signed-in person
     const { sessions } = mountAccounts(app, { database: settings.database, publicOrigin, demoMode: settings.demoMode ?? true, signInLimits: settings.signInLimits, now: settings.now });
     mountMailRoutes(app, { db: settings.database.db, sessions, mailer: settings.mailer, publicOrigin });
+    // notices of the discussion (shared with you, new comment, closing soon), sent after the change is committed
+    const notifications = new Notifications({ db: settings.database.db, mailer: settings.mailer, publicOrigin });
+    app.locals['notifications'] = notifications;
+    // main.ts starts the hourly closing-soon check and stops it on close; tests call runOnce
+    app.locals['closingSoon'] = closingSoonScheduler(notifications);
     app.use('/api/webs', webRoutes({ db: settings.database.db, engine }));
-    app.use('/api', optionStoreRoutes({ db: settings.database.db, engine }));
+    app.use('/api', optionStoreRoutes({ db: settings.database.db, engine, notifications }));
+    app.use('/api', discussionRoutes({ db: settings.database.db, engine, notifications }));
+    app.use('/api', notificationRoutes(notifications));
     // the queue of option runs; main.ts starts its worker loop, tests drain it (runs/run-queue.ts, runQueueOf)
     const runQueue = createRunQueue({ db: settings.database.db, engine, drawPool: settings.drawPool ?? createDrawPool(undefined, { keepAlive: false }) });
     app.locals['runQueue'] = runQueue;

@@ -1,6 +1,6 @@
 import { resolve } from 'node:path';
 import { createDrawPool } from '@seinework/draw-pool';
-import { createApp } from './app';
+import { closingSoonOf, createApp, notificationsOf } from './app';
 import { createEngineJobs } from './engine/engine-jobs';
 import { readConfig } from './config';
 import { openDatabase } from './db/database';
@@ -8,6 +8,7 @@ import { DataDirInUseError } from './db/data-dir-lock';
 import { seedDemo } from './seed/seed-demo';
 import { startMail } from './mail/start-mail';
 import { DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users';
+import { DEMO_DISCUSSION_USERS } from './seed/demo-discussion';
 import { runQueueOf } from './runs/run-queue';
 
 const config = readConfig();
@@ -23,7 +24,7 @@ const database = await openDatabase(config.databaseUrl ? { databaseUrl: config.d
   throw error;
 });
 if (config.demoMode && (await seedDemo(database, config.nodeEnv)).seeded) {
-  console.log(`Demo accounts created (password ${DEMO_PASSWORD}): ${DEMO_USERS.map((u) => u.email).join(', ')}`);
+  console.log(`Demo accounts created (password ${DEMO_PASSWORD}): ${[...DEMO_USERS, ...DEMO_DISCUSSION_USERS].map((u) => u.email).join(', ')}`);
 }
 
 const mail = await startMail({ smtpUrl: config.smtpUrl, demoMode: config.demoMode, db: database.db, from: process.env['MAIL_FROM'] });
@@ -44,6 +45,9 @@ const app = await createApp({
 // runs queued by anyone (this process or another on the same PostgreSQL) are computed here
 const runQueue = runQueueOf(app);
 runQueue.start();
+// public comment closing within a day: reminders once at start, then hourly
+const closingSoon = closingSoonOf(app);
+closingSoon.start();
 const server = app.listen(port, host, () => {
   console.log(`Seinework is running at http://${host}:${port}/`);
 });
@@ -52,7 +56,8 @@ const server = app.listen(port, host, () => {
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.once(signal, () => {
     // a run being computed goes back to the queue before the workers and the database stop
-    server.close(() => void runQueue.stop().then(() => Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())])));
+    closingSoon.stop();
+    server.close(() => void Promise.all([runQueue.stop(), notificationsOf(app).queue.idle()]).then(() => Promise.all([engine.destroy(), drawPool.destroy(), mail.close().then(() => database.close())])));
     server.closeAllConnections();
   });
 }

@@ -37,11 +37,17 @@ export const commentAnchorSchema = z.strictObject({
 });
 export type CommentAnchor = z.infer<typeof commentAnchorSchema>;
 
-/** `POST /api/options/:id/comments`: a comment, a reply (`parentId`, one level deep) and what it points at. */
+/**
+ * `POST /api/options/:id/comments`: a comment, a reply (`parentId`, one level deep) and what it
+ * points at. `audience` picks the discussion when the option is shared both for council review and
+ * for public comment (default: the council's for council members, else the public one); a reply
+ * always joins its parent's discussion.
+ */
 export const commentBodySchema = z.strictObject({
   text: commentText,
   parentId: z.string({ error: 'parentId must be a string' }).max(64, 'parentId must be at most 64 characters').optional(),
   anchor: commentAnchorSchema.optional(),
+  audience: z.enum(['council', 'public'], { error: 'audience must be "council" or "public"' }).optional(),
 });
 export type CommentBody = z.infer<typeof commentBodySchema>;
 
@@ -57,6 +63,8 @@ export const hideCommentSchema = z.strictObject({
 export interface CommentItem {
   id: string;
   optionId: string;
+  /** Which discussion it belongs to (council review or public comment). */
+  audience: 'council' | 'public';
   parentId: string | null;
   author: { id: string; name: string; role: string };
   /** The text; null for a hidden comment shown to someone other than its author or staff. */
@@ -81,6 +89,8 @@ export interface CommentPage {
 }
 
 export interface DiscussionState {
+  /** The discussion a new comment of the asker's joins by default; null when the option is not shared (with them). */
+  audience: 'council' | 'public' | null;
   /** Whether the asker may post now. */
   open: boolean;
   /** Why not, in words for the screen (e.g. "Public comment closed on 3 December 2026."). */

@@ -33,6 +33,11 @@ export const ACTIONS = [
   'options.share',
   /** Read options shared for council review, their runs and the baselines they stand on; compare them. */
   'options.read-shared',
+  /**
+   * Read an option shared for public comment, the run its public share shows and the baseline it
+   * stands on (stakeholders; those who read shared options see public shares too).
+   */
+  'options.read-public',
   /** Record a preference among compared options (on an option shared with the member). */
   'preferences.record',
   /** Comment on an option one may read (stakeholders: only while it is open for public comment). */
@@ -49,7 +54,7 @@ const PERMISSIONS: Readonly<Record<Role, readonly Action[]>> = {
   analyst: ['webs.read-published', 'webs.read-drafts', 'webs.create', 'webs.edit', 'webs.publish', 'options.read-all', 'options.edit', 'options.share', 'comments.post', 'briefs.read'],
   council: ['webs.read-published', 'options.read-shared', 'preferences.record', 'comments.post'],
   staff: ['webs.read-published', 'options.read-shared', 'comments.post', 'comments.moderate', 'briefs.read'],
-  stakeholder: ['comments.post'],
+  stakeholder: ['options.read-public', 'comments.post'],
 };
 
 /** Whether a role may take an action: the single rule behind every server check and every hidden button. */

@@ -23,6 +23,8 @@ interface RouteRow {
 
 /** Options are read by those who read every option and by those who read shared ones. */
 const OPTION_READERS: readonly Action[] = ['options.read-all', 'options.read-shared'];
+/** One option, the run its share shows, its baseline and its discussion are also read by stakeholders (public comment). */
+const SHARED_READERS: readonly Action[] = ['options.read-all', 'options.read-shared', 'options.read-public'];
 
 const ROUTES: readonly RouteRow[] = [
   // stateless (no stored data): open to anyone, as before accounts existed
@@ -57,7 +59,7 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'POST', path: '/api/webs/balance', access: 'webs.edit' },
   { method: 'GET', path: '/api/webs/:id', access: 'webs.read-published' },
   { method: 'POST', path: '/api/webs/:id/versions', access: 'webs.edit' },
-  { method: 'GET', path: '/api/webs/:id/versions/:versionId', access: 'webs.read-published' },
+  { method: 'GET', path: '/api/webs/:id/versions/:versionId', access: ['webs.read-published', 'options.read-public'] },
   { method: 'POST', path: '/api/webs/:id/versions/:versionId/publish', access: 'webs.publish' },
   { method: 'POST', path: '/api/webs/:id/versions/:versionId/clone', access: 'webs.create' },
   { method: 'GET', path: '/api/webs/:id/versions/:versionId/export', access: 'webs.read-published' },
@@ -66,7 +68,7 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'POST', path: '/api/webs/:id/versions/:versionId/options', access: 'options.edit' },
   { method: 'GET', path: '/api/webs/:id/versions/:versionId/options', access: OPTION_READERS },
   { method: 'POST', path: '/api/webs/:id/versions/:versionId/options/preview', access: 'options.edit' },
-  { method: 'GET', path: '/api/options/:id', access: OPTION_READERS },
+  { method: 'GET', path: '/api/options/:id', access: SHARED_READERS },
   { method: 'PUT', path: '/api/options/:id', access: 'options.edit' },
   { method: 'POST', path: '/api/options/:id/duplicate', access: 'options.edit' },
   { method: 'DELETE', path: '/api/options/:id', access: 'options.edit' },
@@ -78,9 +80,20 @@ const ROUTES: readonly RouteRow[] = [
   // runs and their queue (runs-queue)
   { method: 'POST', path: '/api/options/:id/runs', access: 'options.edit' },
   { method: 'GET', path: '/api/options/:id/runs', access: OPTION_READERS },
-  { method: 'GET', path: '/api/runs/:id', access: OPTION_READERS },
+  { method: 'GET', path: '/api/runs/:id', access: SHARED_READERS },
   { method: 'POST', path: '/api/runs/:id/cancel', access: 'options.edit' },
   { method: 'GET', path: '/api/runs/:id/events', access: OPTION_READERS },
+  // public comment and discussion, notices (discussion)
+  { method: 'GET', path: '/api/options/:id/comments', access: SHARED_READERS },
+  { method: 'POST', path: '/api/options/:id/comments', access: 'comments.post' },
+  { method: 'PATCH', path: '/api/comments/:id', access: 'comments.post' },
+  { method: 'POST', path: '/api/comments/:id/hide', access: 'comments.moderate' },
+  { method: 'PUT', path: '/api/options/:id/follow', access: SHARED_READERS },
+  { method: 'DELETE', path: '/api/options/:id/follow', access: SHARED_READERS },
+  { method: 'GET', path: '/api/discussions', access: SHARED_READERS },
+  { method: 'GET', path: '/api/me/notifications', access: 'signed-in' },
+  { method: 'PUT', path: '/api/me/notifications', access: 'signed-in' },
+  { method: 'GET', path: '/api/notifications/unsubscribe', access: 'public' },
 ];
 
 /** Every route of the app as `METHOD /path`, read from Express's router (mounted routers included). */

@@ -72,8 +72,106 @@ export function passwordResetMessage(input: PasswordResetMessageInput): Outgoing
   };
 }
 
+/** What every notice carries: where to read, and the one-click way to stop this kind of notice. */
+export interface NoticeInput {
+  readonly to: string;
+  readonly name: string;
+  readonly publicOrigin: string;
+  readonly optionId: string;
+  readonly optionName: string;
+  /** The token of the unsubscribe link (`GET /api/notifications/unsubscribe?token=…`). */
+  readonly unsubscribeToken: string;
+}
+
+export function discussionLink(publicOrigin: string, optionId: string): string {
+  return `${trimSlash(publicOrigin)}/options/${encodeURIComponent(optionId)}/discussion`;
+}
+
+export function unsubscribeLink(publicOrigin: string, token: string): string {
+  return `${trimSlash(publicOrigin)}/api/notifications/unsubscribe?token=${encodeURIComponent(token)}`;
+}
+
+function noticeFooter(input: NoticeInput, what: string): string[] {
+  return ['', `To stop ${what}, open this link (no need to sign in):`, '', unsubscribeLink(input.publicOrigin, input.unsubscribeToken), '', 'You can turn every kind of notice on or off again in Seinework, under your account.', '', '— Seinework'];
+}
+
+export interface OptionSharedMessageInput extends NoticeInput {
+  readonly audience: 'council' | 'public';
+  readonly sharedBy: string;
+  readonly closesAt: Date | null;
+}
+
+export function optionSharedMessage(input: OptionSharedMessageInput): OutgoingMessage {
+  const forWhat = input.audience === 'public' ? 'for public comment' : 'for council review';
+  return {
+    to: input.to,
+    subject: input.audience === 'public' ? `Open for public comment: ${oneLine(input.optionName)}` : `Shared for council review: ${oneLine(input.optionName)}`,
+    text: [
+      `Hello ${oneLine(input.name)},`,
+      '',
+      `${oneLine(input.sharedBy)} has shared the harvest option "${oneLine(input.optionName)}" ${forWhat}.`,
+      input.closesAt ? `Comments close at ${formatInstant(input.closesAt)}.` : 'There is no closing date yet.',
+      '',
+      'Read it and its discussion here (sign in first):',
+      '',
+      discussionLink(input.publicOrigin, input.optionId),
+      ...noticeFooter(input, 'e-mail when an option is shared with you'),
+    ].join('\n'),
+  };
+}
+
+export interface NewCommentMessageInput extends NoticeInput {
+  readonly author: string;
+  readonly excerpt: string;
+}
+
+export const NEW_COMMENT_SUBJECT = 'A new comment on an option you follow';
+
+export function newCommentMessage(input: NewCommentMessageInput): OutgoingMessage {
+  return {
+    to: input.to,
+    subject: NEW_COMMENT_SUBJECT,
+    text: [
+      `Hello ${oneLine(input.name)},`,
+      '',
+      `${oneLine(input.author)} commented on the harvest option "${oneLine(input.optionName)}", whose discussion you follow:`,
+      '',
+      ...input.excerpt.split('\n').map((line) => `> ${line}`),
+      '',
+      'Read the whole discussion and answer here (sign in first):',
+      '',
+      discussionLink(input.publicOrigin, input.optionId),
+      ...noticeFooter(input, `following the discussion of "${oneLine(input.optionName)}"`),
+    ].join('\n'),
+  };
+}
+
+export interface ClosingSoonMessageInput extends NoticeInput {
+  readonly closesAt: Date;
+}
+
+export function closingSoonMessage(input: ClosingSoonMessageInput): OutgoingMessage {
+  return {
+    to: input.to,
+    subject: `Public comment closes soon: ${oneLine(input.optionName)}`,
+    text: [
+      `Hello ${oneLine(input.name)},`,
+      '',
+      `Public comment on the harvest option "${oneLine(input.optionName)}" closes at ${formatInstant(input.closesAt)}. After that the discussion can still be read, but no longer added to.`,
+      '',
+      discussionLink(input.publicOrigin, input.optionId),
+      ...noticeFooter(input, 'e-mail when public comment is about to close'),
+    ].join('\n'),
+  };
+}
+
+/** Names and subjects on one line: a line break in an option's name must not shape the message. */
+function oneLine(text: string): string {
+  return text.replace(/[\r\n]+/g, ' ');
+}
+
 /** UTC, spelled out, so the reader's time zone cannot make it ambiguous. */
-function formatInstant(instant: Date): string {
+export function formatInstant(instant: Date): string {
   return `${instant.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 }
 

@@ -56,7 +56,9 @@ describe('council review', () => {
       expect(list.items.map((o) => o.id)).toEqual([shared]);
     }
     expect((await baseline.analyst.get(baseline.base)).body.total).toBe(2);
-    expect((await stakeholder.get(`/api/options/${shared}`)).status).toBe(403);
+    // stakeholders read only options shared for public comment (discussion/discussion-visibility.spec.ts)
+    expect((await stakeholder.get(`/api/options/${shared}`)).status).toBe(404);
+    expect((await stakeholder.get(baseline.base)).status).toBe(403);
 
     const withdrawn = await baseline.analyst.delete(`/api/shares/${shareId}`);
     expect(withdrawn.status).toBe(204);
@@ -87,12 +89,15 @@ describe('council review', () => {
     expect((await staff.get(version)).status).toBe(200);
   });
 
-  it('refuses public comment until the discussion slice, a share without a finished run, and a second share', async () => {
+  it('refuses public comment without a closing date in the future, a share without a finished run, and a second share', async () => {
     const baseline = await publishedBaseline(t);
     const option = await createOption(baseline);
     const publicShare = await baseline.analyst.post(`/api/options/${option}/shares`).send({ audience: 'public' });
     expect(publicShare.status).toBe(422);
-    expect(publicShare.body.error).toMatch(/public comment is not open yet.*discussion/);
+    expect(publicShare.body.error).toMatch(/closing date.*closesAt/);
+    const past = await baseline.analyst.post(`/api/options/${option}/shares`).send({ audience: 'public', closesAt: new Date(Date.now() - 60_000).toISOString() });
+    expect(past.status).toBe(422);
+    expect(past.body.error).toMatch(/future/);
     const noRun = await baseline.analyst.post(`/api/options/${option}/shares`).send({ audience: 'council' });
     expect(noRun.status).toBe(409);
     expect(noRun.body.error).toMatch(/no finished run/);

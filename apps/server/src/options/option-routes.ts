@@ -5,6 +5,7 @@ import { currentUser, requireAction } from '../auth/guards';
 import type { Db } from '../db/database';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { clientSignal } from '../http/client-signal';
+import type { Notifications } from '../notifications/notification-service';
 import { parseInput } from '../validate';
 import { ComparisonService } from './comparison-service';
 import { parseOptionBody } from './engine-problems';
@@ -37,11 +38,13 @@ const comparisonQuery = z.strictObject({
 
 /** Readers of options: every option, or the shared ones (the services narrow what each sees). */
 const readsOptions = requireAnyAction('options.read-all', 'options.read-shared');
+/** One option is also read by stakeholders: one shared for public comment (option-visibility.ts). */
+const readsOption = requireAnyAction('options.read-all', 'options.read-shared', 'options.read-public');
 
-export function optionStoreRoutes({ db, engine }: { db: Db; engine: EngineJobs }): Router {
+export function optionStoreRoutes({ db, engine, notifications }: { db: Db; engine: EngineJobs; notifications?: Notifications }): Router {
   const router = Router();
   const optionService = new OptionService(db, engine);
-  const shareService = new ShareService(db, optionService);
+  const shareService = new ShareService(db, optionService, notifications);
   const preferenceService = new PreferenceService(db, optionService);
   const comparisonService = new ComparisonService(db, preferenceService);
 
@@ -62,7 +65,7 @@ export function optionStoreRoutes({ db, engine }: { db: Db; engine: EngineJobs }
     response.json(await optionService.preview(currentUser(response), id, versionId, body, clientSignal(request, response)));
   });
 
-  router.get('/options/:id', readsOptions, async (request, response) => {
+  router.get('/options/:id', readsOption, async (request, response) => {
     const { id } = parseInput(optionAddress, request.params, 'address');
     response.json(await optionService.detail(currentUser(response), id));
   });

@@ -11,7 +11,7 @@ import { visibleVersion } from '../webs/visibility';
 import { withOptionProblems } from './engine-problems';
 import { optionPreview } from './option-preview';
 import { runSummary } from './run-summary';
-import { visibleOption } from './option-visibility';
+import { readsPublicOnly, visibleOption, visibleShare } from './option-visibility';
 
 /**
  * Stored harvest options: every query and transaction of the option routes. An option stands on a
@@ -52,13 +52,13 @@ export class OptionService {
       .from(options)
       .where(and(eq(options.versionId, versionId), visibleOption(user)))
       .orderBy(asc(options.createdAt), asc(options.id));
-    const items = await this.summaries(rows);
+    const items = await this.summaries(rows, user);
     return { items, total: items.length };
   }
 
   async detail(user: CurrentUser, id: string): Promise<OptionDetail> {
     const row = await this.visibleRow(user, id);
-    const [summary] = await this.summaries([row]);
+    const [summary] = await this.summaries([row], user);
     return { ...summary!, option: optionOf(row) };
   }
 
@@ -154,8 +154,11 @@ export class OptionService {
     if (started!.n > 0) throw frozen();
   }
 
-  /** Options as listed: with their creator, whether they have runs, their newest run and their active shares. */
-  private async summaries(rows: OptionRow[]): Promise<OptionSummary[]> {
+  /**
+   * Options as listed: with their creator, whether they have runs, their newest run and the active
+   * shares this person sees; to a stakeholder, the run their public share shows stands for the newest.
+   */
+  private async summaries(rows: OptionRow[], user: CurrentUser): Promise<OptionSummary[]> {
     if (rows.length === 0) return [];
     const ids = rows.map((r) => r.id);
     const creatorIds = [...new Set(rows.map((r) => r.createdBy))];
@@ -167,11 +170,13 @@ export class OptionService {
         .innerJoin(users, eq(users.id, runs.createdBy))
         .where(inArray(runs.optionId, ids))
         .orderBy(desc(runs.createdAt), desc(runs.id)),
-      activeShares(this.db, inArray(shares.optionId, ids)),
+      activeShares(this.db, and(inArray(shares.optionId, ids), visibleShare(user))),
     ]);
+    const publicOnly = readsPublicOnly(user);
     const nameOf = new Map(names.map((n) => [n.id, n.name]));
     return rows.map((row) => {
-      const latest = runRows.find((r) => r.run.optionId === row.id);
+      const shown = shareRows.filter((s) => s.optionId === row.id);
+      const latest = runRows.find((r) => r.run.optionId === row.id && (!publicOnly || shown.some((s) => s.runId === r.run.id)));
       return {
         id: row.id,
         webId: row.webId,
@@ -184,7 +189,7 @@ export class OptionService {
         createdBy: nameOf.get(row.createdBy) ?? '',
         createdAt: row.createdAt.toISOString(),
         latestRun: latest ? runSummary(latest.run, latest.createdBy) : null,
-        shares: shareRows.filter((s) => s.optionId === row.id).map(({ optionId: _, ...share }) => share),
+        shares: shown.map(({ optionId: _, ...share }) => share),
       };
     });
   }

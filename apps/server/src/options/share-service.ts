@@ -6,39 +6,48 @@ import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { options, runs, shares } from '../db/schema';
 import { RequestError } from '../http/errors';
+import type { Notifications } from '../notifications/notification-service';
 import type { OptionService } from './option-service';
 import { isUniqueViolation } from './unique-violation';
 
 /**
- * Sharing an option for council review, and withdrawing the share. A share shows one finished run
- * (the council compares results, not inputs); withdrawing keeps the row, so the audit log and the
- * shares say who could see what, when. Public comment arrives with the discussion slice.
+ * Sharing an option for council review or public comment, and withdrawing the share. A share shows
+ * one finished run (readers compare results, not inputs); withdrawing keeps the row, so the audit log
+ * and the shares say who could see what, when. A share for public comment needs its closing date;
+ * after it the discussion is read-only. Once the share is stored its audience is told by e-mail
+ * (notifications/, queued after the commit).
  */
 
 type ShareBody = z.infer<typeof shareBodySchema>;
+
+const AUDIENCE_WORDS = { council: 'for council review', public: 'for public comment' } as const;
 
 export class ShareService {
   constructor(
     private readonly db: Db,
     private readonly optionService: OptionService,
+    private readonly notifications?: Notifications,
+    private readonly now: () => Date = () => new Date(),
   ) {}
 
   async share(user: CurrentUser, optionId: string, body: ShareBody): Promise<{ id: string }> {
-    if (body.audience === 'public') {
-      throw new RequestError(422, 'Sharing for public comment is not open yet (it comes with the discussion slice): share the option for council review instead');
-    }
+    const closesAt = body.closesAt ? new Date(body.closesAt) : null;
+    if (body.audience === 'public' && !closesAt) throw new RequestError(422, 'A share for public comment needs its closing date: give closesAt', ['closesAt: required for public comment']);
+    if (closesAt && closesAt.getTime() <= this.now().getTime()) throw new RequestError(422, 'closesAt must be in the future', ['closesAt: must be later than now']);
     const option = await this.optionService.visibleRow(user, optionId);
     const runId = await this.shownRun(optionId, body.runId);
     const id = randomUUID();
     try {
       await this.db.transaction(async (tx) => {
-        await tx.insert(shares).values({ id, optionId, audience: body.audience, runId, sharedBy: user.id, closesAt: body.closesAt ? new Date(body.closesAt) : null });
-        await recordAudit(tx, { actorId: user.id, action: 'option.shared', subject: `option:${optionId}`, detail: `Harvest option "${option.name}" shared for council review (run ${runId})` });
+        await tx.insert(shares).values({ id, optionId, audience: body.audience, runId, sharedBy: user.id, closesAt });
+        const until = closesAt ? `, closing ${closesAt.toISOString()}` : '';
+        await recordAudit(tx, { actorId: user.id, action: 'option.shared', subject: `option:${optionId}`, detail: `Harvest option "${option.name}" shared ${AUDIENCE_WORDS[body.audience]} (run ${runId}${until})` });
       });
     } catch (error) {
-      if (isUniqueViolation(error)) throw new RequestError(409, 'This option is already shared for council review');
+      if (isUniqueViolation(error)) throw new RequestError(409, `This option is already shared ${AUDIENCE_WORDS[body.audience]}`);
       throw error;
     }
+    this.notifications?.optionShared(id);
     return { id };
   }
 
@@ -57,7 +66,8 @@ export class ShareService {
         .where(and(eq(shares.id, shareId), isNull(shares.withdrawnAt)))
         .returning({ id: shares.id });
       if (withdrawn.length === 0) throw new RequestError(409, 'This share was already withdrawn');
-      await recordAudit(tx, { actorId: user.id, action: 'option.share-withdrawn', subject: `option:${found.share.optionId}`, detail: `Council review of "${found.optionName}" withdrawn` });
+      const what = found.share.audience === 'public' ? 'Public comment on' : 'Council review of';
+      await recordAudit(tx, { actorId: user.id, action: 'option.share-withdrawn', subject: `option:${found.share.optionId}`, detail: `${what} "${found.optionName}" withdrawn` });
     });
   }
 

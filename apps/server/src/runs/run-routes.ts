@@ -20,6 +20,8 @@ import { RunService, TERMINAL } from './run-service';
 const id = z.string().min(1).max(64);
 const address = z.strictObject({ id });
 const readsRuns = requireAnyAction('options.read-all', 'options.read-shared');
+/** A run is also read by stakeholders: the one a share for public comment shows (options/option-visibility.ts). */
+const readsRun = requireAnyAction('options.read-all', 'options.read-shared', 'options.read-public');
 
 /** How often the events stream looks at the row: a run computed by another server process has no in-process news. */
 const EVENT_POLL_MS = 500;
@@ -39,7 +41,7 @@ export function runRoutes({ db, queue }: { db: Db; queue: RunQueue }): Router {
     response.json(await service.listForOption(currentUser(response), optionId));
   });
 
-  router.get('/runs/:id', readsRuns, async (request, response) => {
+  router.get('/runs/:id', readsRun, async (request, response) => {
     const { id: runId } = parseInput(address, request.params, 'address');
     const tables = tableSelection(request);
     const detail = await service.detail(currentUser(response), runId);

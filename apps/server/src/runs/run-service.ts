@@ -7,7 +7,7 @@ import type { Db } from '../db/database';
 import { options, runs, users, type RunInputs } from '../db/schema';
 import { RequestError } from '../http/errors';
 import { lockOption, optionOf } from '../options/option-service';
-import { visibleOption } from '../options/option-visibility';
+import { visibleOption, visibleRun } from '../options/option-visibility';
 import { runSummary } from '../options/run-summary';
 import { ENGINE_VERSION } from '../seed/demo-run-document';
 import type { RunQueue } from './run-queue';
@@ -142,7 +142,7 @@ export class RunService {
       .from(runs)
       .innerJoin(options, eq(options.id, runs.optionId))
       .innerJoin(users, eq(users.id, runs.createdBy))
-      .where(and(eq(runs.id, sql.placeholder('id')), visibleOption(user)))
+      .where(and(eq(runs.id, sql.placeholder('id')), visibleRun(user)))
       .prepare(`visible_run_${user.role}`);
   }
 }

@@ -18,7 +18,7 @@ afterEach(() => t.close());
 const FEW_DRAWS = { draws: 12, cv: 0.25, seed: 20261202 };
 
 describe('demo harvest options', () => {
-  it('seeds five options on the demo baseline with queued runs that the run queue computes, and shares three for council review', async () => {
+  it('seeds five options on the demo baseline with queued runs that the run queue computes, and shares three for council review, one of them for public comment too', async () => {
     // in one transaction, as seedDemo does on a first start
     await t.database.db.transaction(async (tx) => {
       await seedDemoWebs(tx);
@@ -52,7 +52,7 @@ describe('demo harvest options', () => {
     expect(all.items.every((o) => o.frozen && o.latestRun?.status === 'done' && o.purpose.length > 0)).toBe(true);
     const shared = (await council.get(base)).body as { items: OptionSummary[] };
     expect(shared.items.map((o) => [o.name, o.shares.map((s) => s.audience)])).toEqual([
-      ['Cut the forage-fish quota by 40 %', ['council']],
+      ['Cut the forage-fish quota by 40 %', ['council', 'public']],
       ['Close the set-gillnet fleet', ['council']],
       ['Raise the mid-water predator quota by 25 %', ['council']],
     ]);

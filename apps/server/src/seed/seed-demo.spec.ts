@@ -5,6 +5,7 @@ import { openDatabase, type AppDatabase } from '../db/database';
 import { auditEvents, users } from '../db/schema';
 import { DemoRefusedError, seedDemo } from './seed-demo';
 import { DEMO_PASSWORD, demoEmail } from './demo-users';
+import { DEMO_DISCUSSION_USERS } from './demo-discussion';
 
 let database: AppDatabase;
 beforeEach(async () => {
@@ -13,19 +14,22 @@ beforeEach(async () => {
 afterEach(() => database.close());
 
 describe('seedDemo', () => {
-  it('creates one demo account per role with the demo password, once, each with its audit event', async () => {
+  it('creates one demo account per role and the three invented stakeholders of the demo discussion, with the demo password, once, each with its audit event', async () => {
     expect(await seedDemo(database, 'development')).toEqual({ seeded: true });
     const stored = await database.db.select().from(users);
-    expect(stored.map((u) => u.email).sort()).toEqual(ROLES.map(demoEmail).sort());
+    const everyone = [...ROLES.map(demoEmail), ...DEMO_DISCUSSION_USERS.map((u) => u.email)];
+    expect(stored.map((u) => u.email).sort()).toEqual(everyone.sort());
     for (const user of stored) {
-      expect(user.email).toBe(demoEmail(user.role));
+      expect(user.email.endsWith('@demo.test')).toBe(true);
       expect(await verifyPassword(user.passwordHash, DEMO_PASSWORD)).toBe(true);
     }
-    expect(await database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.created'))).toHaveLength(ROLES.length);
+    for (const role of ROLES) expect(stored.find((u) => u.email === demoEmail(role))!.role).toBe(role);
+    expect(stored.filter((u) => u.name.endsWith('(demo)')).map((u) => u.role)).toEqual(['stakeholder', 'stakeholder', 'stakeholder']);
+    expect(await database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.created'))).toHaveLength(everyone.length);
     // the demo web: created and published by the demo analyst
     expect((await database.db.select().from(auditEvents).where(like(auditEvents.action, 'web.%'))).map((e) => e.action)).toEqual(['web.created', 'web.published']);
     expect(await seedDemo(database, 'development')).toEqual({ seeded: false });
-    expect(await database.db.select().from(users)).toHaveLength(ROLES.length);
+    expect(await database.db.select().from(users)).toHaveLength(everyone.length);
   });
 
   it('refuses in production and creates nothing', async () => {

@@ -4,6 +4,7 @@ import { hashPassword } from '../auth/passwords';
 import type { AppDatabase, Db } from '../db/database';
 import { users } from '../db/schema';
 import { DEMO_PASSWORD, DEMO_USERS } from './demo-users';
+import { seedDemoDiscussion } from './demo-discussion';
 import { seedDemoOptions } from './demo-options';
 import { seedDemoWebs } from './demo-webs';
 
@@ -11,7 +12,8 @@ export class DemoRefusedError extends Error {}
 
 /**
  * Demo data for a fresh database: one user per role, the demo web and its harvest options (whose
- * runs wait in the run queue for the server to compute them).
+ * runs wait in the run queue for the server to compute them), and the discussion of the option open
+ * for public comment with its three invented stakeholders.
  * Runs once: a database that already has users is left alone. Refused in production, where
  * demo accounts with a published password must never exist.
  */
@@ -24,6 +26,7 @@ export async function seedDemo(database: AppDatabase, nodeEnv: string | undefine
     await seedDemoUsers(tx);
     await seedDemoWebs(tx);
     await seedDemoOptions(tx);
+    await seedDemoDiscussion(tx);
   });
   return { seeded: true };
 }

@@ -2,7 +2,7 @@ import { resolve } from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
 import type { Role } from '@seinework/contracts';
-import { createApp, type AppSettings } from '../app';
+import { createApp, notificationsOf, type AppSettings } from '../app';
 import type { AppDatabase } from '../db/database';
 import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
 import { createMailer } from '../mail/mailer';
@@ -58,6 +58,8 @@ export async function createTestApp(overrides: Partial<AppSettings> = {}): Promi
       return agent;
     },
     async close() {
+      // notices still queued go out before the mail server and the database stop
+      await notificationsOf(app).queue.idle();
       mailer.close();
       await smtp.close();
       await database.close();

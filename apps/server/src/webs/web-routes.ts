@@ -5,6 +5,7 @@ import { balancePreviewBodySchema, cloneBodySchema, newVersionBodySchema, upload
 import { createWorkerPool } from '@seinework/draw-pool';
 import { MAX_UPLOAD_BYTES, MAX_UPLOAD_FILES, type WebRead } from '@seinework/web-tables';
 import { currentUser, requireAction } from '../auth/guards';
+import { requireAnyAction } from '../options/read-guard';
 import type { Db } from '../db/database';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { clientSignal } from '../http/client-signal';
@@ -75,7 +76,8 @@ export function webRoutes({ db, engine }: { db: Db; engine: EngineJobs }): Route
     response.status(201).json(created);
   });
 
-  router.get('/:id/versions/:versionId', requireAction('webs.read-published'), async (request, response) => {
+  // stakeholders read the baseline of an option shared for public comment (webs/visibility.ts), and no other web route
+  router.get('/:id/versions/:versionId', requireAnyAction('webs.read-published', 'options.read-public'), async (request, response) => {
     const { id, versionId } = versionOf(request);
     response.json(await webs.version(currentUser(response), id, versionId));
   });
