@@ -20,6 +20,7 @@ import type { Mailer } from './mail/mailer';
 import { createDrawPool, type DrawPool } from '@seinework/draw-pool';
 import { createRunQueue } from './runs/run-queue';
 import { runRoutes } from './runs/run-routes';
+import { briefRoutes } from './briefs/brief-routes';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
@@ -74,6 +75,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
     const runQueue = createRunQueue({ db: settings.database.db, engine, drawPool: settings.drawPool ?? createDrawPool(undefined, { keepAlive: false }) });
     app.locals['runQueue'] = runQueue;
     app.use('/api', runRoutes({ db: settings.database.db, queue: runQueue }));
+    app.use('/api', briefRoutes({ db: settings.database.db, engine }));
   }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.originalUrl.split('?')[0]}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {
