@@ -81,6 +81,11 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'GET', path: '/api/runs/:id', access: OPTION_READERS },
   { method: 'POST', path: '/api/runs/:id/cancel', access: 'options.edit' },
   { method: 'GET', path: '/api/runs/:id/events', access: OPTION_READERS },
+  // briefs of options and comparisons (briefs)
+  { method: 'GET', path: '/api/options/:id/brief', access: 'briefs.read' },
+  { method: 'GET', path: '/api/options/:id/brief.pdf', access: 'briefs.read' },
+  { method: 'GET', path: '/api/comparisons/brief', access: 'briefs.read' },
+  { method: 'GET', path: '/api/comparisons/brief.pdf', access: 'briefs.read' },
 ];
 
 /** Every route of the app as `METHOD /path`, read from Express's router (mounted routers included). */

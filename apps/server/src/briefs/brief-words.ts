@@ -82,7 +82,7 @@ export function formatNumber(value: number | null | undefined, digits = 4): stri
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   if (value === 0) return '0';
   const size = Math.abs(value);
-  if (size >= 1e7 || size < 1e-4) return value.toExponential(digits - 1).replace('-', '−');
+  if (size >= 1e10 || size < 1e-4) return value.toExponential(digits - 1).replace('-', '−');
   const text = Number(value.toPrecision(digits)).toLocaleString('en-GB', { maximumFractionDigits: 8 });
   return text.replace('-', '−');
 }

@@ -47,16 +47,20 @@ export function fitnessChart(points: readonly PlacedPoint[], width = 500, height
     shapes.push(text(right ? f.right - 2 : f.left + 4, f.top + 9, right ? 'the peak (a = 0.368) lies to the right' : 'the peak (a = 0.368) lies to the left', { anchor: right ? 'end' : 'start', colour: MUTED }));
   }
   let colour = 0;
-  points.forEach((point, index) => {
+  // the legend above the plot, right-aligned (the y axis title is on the left)
+  let legendX = f.right - points.reduce((sum, p) => sum + 14 + p.label.length * 4.6, 0) + 4;
+  for (const point of points) {
     const fill = point.baseline ? MUTED : POINT_COLOURS[colour++ % POINT_COLOURS.length]!;
     const px = x(point.relativeAscendency);
     const py = y(point.robustness);
     if (point.bandA) shapes.push(line(x(point.bandA.p5), py, x(point.bandA.p95), py, fill, 1), line(x(point.bandA.p5), py - 3, x(point.bandA.p5), py + 3, fill, 1), line(x(point.bandA.p95), py - 3, x(point.bandA.p95), py + 3, fill, 1));
     if (point.bandF) shapes.push(line(px, y(point.bandF.p5), px, y(point.bandF.p95), fill, 1), line(px - 3, y(point.bandF.p5), px + 3, y(point.bandF.p5), fill, 1), line(px - 3, y(point.bandF.p95), px + 3, y(point.bandF.p95), fill, 1));
-    shapes.push({ kind: 'circle', cx: px, cy: py, r: point.baseline ? 3.5 : 3, fill });
-    // labels alternate above and below so that close points stay readable
-    shapes.push(text(px + 6, py + (index % 2 === 0 ? -6 : 12), point.label, { anchor: 'start', bold: true, colour: fill }));
-  });
+    // the baseline larger and first: an option that barely moves the web leaves it showing as a ring
+    shapes.push({ kind: 'circle', cx: px, cy: py, r: point.baseline ? 5 : 3, fill });
+    // a legend rather than labels at the points, which often lie closer together than a label is wide
+    shapes.push({ kind: 'circle', cx: legendX, cy: f.top - 7, r: 3, fill }, text(legendX + 6, f.top - 4, point.label, { anchor: 'start', bold: true, colour: fill }));
+    legendX += 14 + point.label.length * 4.6;
+  }
   const description =
     'Fitness curve: ' +
     points

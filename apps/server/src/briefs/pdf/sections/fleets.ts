@@ -12,7 +12,7 @@ export function fleetsSection(pdf: BriefDocument, brief: OptionBrief): void {
     [
       { title: 'Fleet', width: 20 },
       { title: `Catch (${brief.web.unit})`, width: 20, align: 'right' },
-      { title: 'Value', width: 20, align: 'right' },
+      { title: 'Value per year', width: 20, align: 'right' },
       { title: 'Mean trophic level of the catch', width: 20, align: 'right' },
       { title: 'Primary production required', width: 20, align: 'right' },
     ],
