@@ -138,3 +138,26 @@ export interface ComparisonBrief {
   /** The newest finish time of the compared runs. */
   dated: string;
 }
+
+/** How briefs write numbers and dates, the same in the PDF and on the print page. */
+
+/** A number for reading: four significant figures, no exponent for everyday sizes. */
+export function formatNumber(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  if (value === 0) return '0';
+  const size = Math.abs(value);
+  if (size >= 1e10 || size < 1e-4) return value.toExponential(digits - 1).replace('-', '−');
+  const text = Number(value.toPrecision(digits)).toLocaleString('en-GB', { maximumFractionDigits: 8 });
+  return text.replace('-', '−');
+}
+
+export function formatSigned(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return value > 0 ? `+${formatNumber(value, digits)}` : formatNumber(value, digits);
+}
+
+/** A date for reading, in UTC so the brief is the same wherever it is made. */
+export function formatDate(iso: string): string {
+  const date = new Date(iso);
+  return `${date.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })}, ${date.toISOString().slice(11, 16)} UTC`;
+}

@@ -1,4 +1,6 @@
-import type { Adjustment, ResponseRule } from '@seinework/contracts';
+import { formatNumber, type Adjustment, type ResponseRule } from '@seinework/contracts';
+
+export { formatDate, formatNumber, formatSigned } from '@seinework/contracts';
 
 /** The words a brief uses for an option's inputs and for the indicators (PRODUCT.md vocabulary). */
 
@@ -75,27 +77,6 @@ export function adjustmentInWords(adjustment: Adjustment, nameOf: (id: string) =
     case 'scale-production':
       return `${adjustment.percent >= 0 ? 'Raise' : 'Lower'} the primary production of ${nameOf(adjustment.compartment)} ${percent(adjustment.percent)}.`;
   }
-}
-
-/** A number for reading: four significant figures, no exponent for everyday sizes. */
-export function formatNumber(value: number | null | undefined, digits = 4): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  if (value === 0) return '0';
-  const size = Math.abs(value);
-  if (size >= 1e10 || size < 1e-4) return value.toExponential(digits - 1).replace('-', '−');
-  const text = Number(value.toPrecision(digits)).toLocaleString('en-GB', { maximumFractionDigits: 8 });
-  return text.replace('-', '−');
-}
-
-export function formatSigned(value: number | null | undefined, digits = 4): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return value > 0 ? `+${formatNumber(value, digits)}` : formatNumber(value, digits);
-}
-
-/** A date for reading, in UTC so the brief is the same wherever it is made. */
-export function formatDate(iso: string): string {
-  const date = new Date(iso);
-  return `${date.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' })}, ${date.toISOString().slice(11, 16)} UTC`;
 }
 
 /** Compared options are lettered A, B, C… in the order they were listed. */

@@ -17,6 +17,7 @@ export const routes: Routes = [
       { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
+      { path: 'brief', loadChildren: () => import('./brief/brief-routes').then((m) => m.briefRoutes) },
       { path: '**', redirectTo: 'webs' },
     ],
   },
