@@ -24,6 +24,7 @@ import { discussionRoutes } from './discussion/discussion-routes';
 import { closingSoonScheduler, type ClosingSoonScheduler } from './notifications/closing-soon-scheduler';
 import { Notifications } from './notifications/notification-service';
 import { notificationRoutes } from './notifications/notification-routes';
+import { briefRoutes } from './briefs/brief-routes';
 
 export interface AppSettings {
   /** WEB.json of the demo baseline. */
@@ -95,6 +96,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
     const runQueue = createRunQueue({ db: settings.database.db, engine, drawPool: settings.drawPool ?? createDrawPool(undefined, { keepAlive: false }) });
     app.locals['runQueue'] = runQueue;
     app.use('/api', runRoutes({ db: settings.database.db, queue: runQueue }));
+    app.use('/api', briefRoutes({ db: settings.database.db, engine }));
   }
   app.use('/api/{*rest}', (request, _response, next) => next(new RequestError(404, `No such API route: ${request.method} ${request.originalUrl.split('?')[0]}`)));
   if (settings.staticDir && existsSync(settings.staticDir)) {

@@ -9,3 +9,4 @@ export * from './api-limits';
 export * from './duplicate-keys';
 export * from './options-api';
 export * from './discussion-api';
+export * from './brief-api';

@@ -20,6 +20,7 @@ export const routes: Routes = [
       { path: 'options/:optionId/discussion', redirectTo: '/discussions/:optionId' },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
+      { path: 'brief', loadChildren: () => import('./brief/brief-routes').then((m) => m.briefRoutes) },
       { path: '**', redirectTo: 'webs' },
     ],
   },

@@ -1,0 +1,39 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { BriefActions } from './brief-actions';
+import { BriefApi } from './brief-api';
+import { BriefChart } from './brief-chart';
+import { BriefDatePipe, BriefNumberPipe } from './brief-format';
+import { BriefStore } from './brief-store';
+
+/** `/brief/compare?runs=ID,ID`: the brief of a comparison of 2–6 runs as a document to print, with its PDF. */
+@Component({
+  selector: 'sw-comparison-brief',
+  imports: [MatProgressBarModule, BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe],
+  providers: [BriefStore],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './comparison-brief.html',
+  styleUrl: './brief-document.scss',
+})
+export class ComparisonBrief {
+  /** Query parameter `?runs=`: the compared runs, separated by commas. */
+  readonly runs = input<string>('');
+
+  protected readonly store = inject(BriefStore);
+  private readonly api = inject(BriefApi);
+  protected readonly runIds = computed(() =>
+    this.runs()
+      .split(',')
+      .map((id) => id.trim())
+      .filter((id) => id.length > 0),
+  );
+  protected readonly pdfUrl = computed(() => this.api.comparisonPdfUrl(this.runIds()));
+  protected readonly letters = 'ABCDEF';
+
+  constructor() {
+    effect(() => {
+      const ids = this.runIds();
+      untracked(() => this.store.loadComparison(ids));
+    });
+  }
+}
