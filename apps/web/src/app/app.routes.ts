@@ -15,6 +15,7 @@ export const routes: Routes = [
       { path: '', pathMatch: 'full', redirectTo: 'webs' },
       { path: 'webs', canActivate: [allowedTo('webs.read-published')], loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
       { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
+      { path: 'runs', loadChildren: () => import('./results/results-routes').then((m) => m.resultsRoutes) },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
       { path: '**', redirectTo: 'webs' },
