@@ -1,6 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatSortModule, type Sort } from '@angular/material/sort';
-import { MatTableModule } from '@angular/material/table';
 import { CsvButton } from '../shared/csv-button';
 import { formatValue } from './format';
 import { HeatTable } from './heat-table';
@@ -10,7 +9,7 @@ import type { ScenarioDocument } from './result-document';
 /** Indirect diet dependence: the largest changes as a sortable table, and every change as a heat map. */
 @Component({
   selector: 'sw-dependence-section',
-  imports: [MatSortModule, MatTableModule, CsvButton, HeatTable],
+  imports: [MatSortModule, CsvButton, HeatTable],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <p class="note">
@@ -25,29 +24,27 @@ import type { ScenarioDocument } from './result-document';
       <p class="quiet">The option changes no dependence between compartments.</p>
     } @else {
       <div class="scroll" tabindex="0" role="region" aria-label="Largest changes of diet dependence, scrollable">
-        <table mat-table [dataSource]="sorted()" matSort (matSortChange)="sort.set($event)" class="dense" aria-label="Largest changes of indirect diet dependence">
-          <ng-container matColumnDef="fromName">
-            <th mat-header-cell *matHeaderCellDef mat-sort-header>Passed through</th>
-            <td mat-cell *matCellDef="let r">{{ r.fromName }}</td>
-          </ng-container>
-          <ng-container matColumnDef="toName">
-            <th mat-header-cell *matHeaderCellDef mat-sort-header>Food of</th>
-            <td mat-cell *matCellDef="let r">{{ r.toName }}</td>
-          </ng-container>
-          <ng-container matColumnDef="before">
-            <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" start="desc">Share before</th>
-            <td mat-cell *matCellDef="let r" class="num">{{ pct(r.before) }}</td>
-          </ng-container>
-          <ng-container matColumnDef="after">
-            <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" start="desc">Share after</th>
-            <td mat-cell *matCellDef="let r" class="num">{{ pct(r.after) }}</td>
-          </ng-container>
-          <ng-container matColumnDef="change">
-            <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" start="desc">Change</th>
-            <td mat-cell *matCellDef="let r" class="num" [class.up]="r.change > 0" [class.down]="r.change < 0">{{ pts(r.change) }}</td>
-          </ng-container>
-          <tr mat-header-row *matHeaderRowDef="columns"></tr>
-          <tr mat-row *matRowDef="let r; columns: columns"></tr>
+        <table class="dense sortable" matSort (matSortChange)="sort.set($event)" aria-label="Largest changes of indirect diet dependence">
+          <thead>
+            <tr>
+              <th scope="col" class="text" mat-sort-header="fromName">Passed through</th>
+              <th scope="col" class="text" mat-sort-header="toName">Food of</th>
+              <th scope="col" mat-sort-header="before" arrowPosition="before" start="desc">Share before</th>
+              <th scope="col" mat-sort-header="after" arrowPosition="before" start="desc">Share after</th>
+              <th scope="col" mat-sort-header="change" arrowPosition="before" start="desc">Change</th>
+            </tr>
+          </thead>
+          <tbody>
+            @for (r of sorted(); track r.from + '>' + r.to) {
+              <tr>
+                <td class="text">{{ r.fromName }}</td>
+                <td class="text">{{ r.toName }}</td>
+                <td>{{ pct(r.before) }}</td>
+                <td>{{ pct(r.after) }}</td>
+                <td [class.up]="r.change > 0" [class.down]="r.change < 0">{{ pts(r.change) }}</td>
+              </tr>
+            }
+          </tbody>
         </table>
       </div>
     }
@@ -56,12 +53,15 @@ import type { ScenarioDocument } from './result-document';
       <sw-csv-button [table]="matrix()" label="every change of diet dependence" [prefix]="prefix()" />
     </div>
     <p class="note">Rows: the compartment the food passed through. Columns: whose food it is. Figures: change of the share, in percentage points.</p>
-    <sw-heat-table [table]="matrix()" format="percent" [decimals]="1" label="Change of indirect diet dependence, in percentage points, rows passed through, columns food of" />
+    <sw-heat-table [table]="matrix()" format="percent" [decimals]="2" label="Change of indirect diet dependence, in percentage points, rows passed through, columns food of" />
   `,
   styleUrl: './result-tables.scss',
   styles: `
-    table.dense { width: auto; min-width: 60%; }
-    .num { text-align: right; font-variant-numeric: tabular-nums; }
+    table.dense { width: auto; min-width: min(100%, 720px); }
+    table.dense td { font-variant-numeric: tabular-nums; }
+    table.sortable thead th { cursor: pointer; }
+    table.sortable thead th.text ::ng-deep .mat-sort-header-container { justify-content: flex-start; }
+    table.sortable thead th ::ng-deep .mat-sort-header-container { justify-content: flex-end; }
     .up::before { content: '▲ '; color: var(--mat-sys-primary); }
     .down::before { content: '▼ '; color: var(--mat-sys-tertiary); }
   `,
@@ -71,7 +71,6 @@ export class DependenceSection {
   readonly rows = input.required<readonly DependenceChange[]>();
   readonly prefix = input('run');
 
-  protected readonly columns = ['fromName', 'toName', 'before', 'after', 'change'];
   protected readonly sort = signal<Sort>({ active: '', direction: '' });
   protected readonly sorted = computed(() => sortDependence(this.rows(), this.sort().active, this.sort().direction));
   /** The CSV holds the rows in the order shown. */

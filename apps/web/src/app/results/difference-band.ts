@@ -6,15 +6,17 @@ import type { Band } from './result-document';
   selector: 'sw-difference-band',
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <svg viewBox="0 0 120 16" width="120" height="16" aria-hidden="true">
-      <line x1="60" y1="0" x2="60" y2="16" class="zero" />
-      <rect [attr.x]="left()" y="4" [attr.width]="width()" height="8" rx="2" [class.robust]="robust()" />
-      <line [attr.x1]="mid()" [attr.x2]="mid()" y1="2" y2="14" class="median" />
+    <svg viewBox="0 0 200 22" width="200" height="22" aria-hidden="true">
+      <line x1="0" y1="11" x2="200" y2="11" class="axis" />
+      <line x1="100" y1="0" x2="100" y2="22" class="zero" />
+      <rect [attr.x]="left()" y="5" [attr.width]="width()" height="12" rx="2" [class.robust]="robust()" />
+      <line [attr.x1]="mid()" [attr.x2]="mid()" y1="2" y2="20" class="median" />
     </svg>
   `,
   styles: `
     svg { vertical-align: middle; }
-    .zero { stroke: var(--mat-sys-outline); stroke-width: 1; stroke-dasharray: 2 2; }
+    .axis { stroke: var(--mat-sys-outline-variant); stroke-width: 1; }
+    .zero { stroke: var(--mat-sys-on-surface); stroke-width: 1.5; stroke-dasharray: 3 2; }
     rect { fill: var(--mat-sys-outline-variant); }
     rect.robust { fill: var(--mat-sys-primary); }
     .median { stroke: var(--mat-sys-on-surface); stroke-width: 2; }
@@ -26,8 +28,9 @@ export class DifferenceBand {
 
   private readonly scale = computed(() => {
     const b = this.band();
-    const extent = Math.max(Math.abs(b.p5), Math.abs(b.p95), Number.EPSILON);
-    return (v: number) => 60 + (v / extent) * 56;
+    // zero in the middle, the band's far end at 90 % of the half-width
+    const extent = Math.max(Math.abs(b.p5), Math.abs(b.p95), Number.EPSILON) / 0.9;
+    return (v: number) => 100 + (v / extent) * 100;
   });
   protected readonly left = computed(() => this.scale()(this.band().p5));
   protected readonly width = computed(() => Math.max(2, this.scale()(this.band().p95) - this.scale()(this.band().p5)));

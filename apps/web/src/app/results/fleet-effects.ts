@@ -18,7 +18,7 @@ import type { ScenarioDocument } from './result-document';
       What a small increase in a fleet's fishing does to each compartment through every food-web path together (mixed trophic
       impact, after the option, from −1 to +1): above zero the compartment gains, below zero it loses.
     </p>
-    <sw-heat-table [table]="table()" label="Mixed trophic impact of each fleet on each compartment" />
+    <sw-heat-table [table]="table()" [decimals]="3" label="Mixed trophic impact of each fleet on each compartment" />
   `,
   styleUrl: './result-tables.scss',
 })

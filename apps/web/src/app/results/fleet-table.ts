@@ -28,7 +28,7 @@ import { fleetTable, type FleetRow } from './result-tables';
         </thead>
         <tbody>
           @for (row of rows(); track row.fleet) {
-            <tr [id]="'fleet-' + row.fleet">
+            <tr [id]="'fleet-' + slug(row.fleet)">
               <th scope="row">{{ row.fleet }}</th>
               <td>{{ n(row.catchBefore, 3) }} → {{ n(row.catchAfter, 3) }}</td>
               <td>{{ n(row.tonnesBefore, 0) }} → {{ n(row.tonnesAfter, 0) }}</td>
@@ -54,6 +54,10 @@ export class FleetTable {
   readonly prefix = input('run');
 
   protected readonly table = computed(() => fleetTable(this.rows()));
+  /** An id-safe form of a fleet's name: `Purse seine` → `purse-seine`. */
+  protected slug(name: string): string {
+    return name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '');
+  }
   protected n(value: number | null, decimals: number): string {
     return formatValue(value, 'number', decimals);
   }

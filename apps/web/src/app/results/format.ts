@@ -6,7 +6,8 @@
 export function formatValue(value: number | null | undefined, format: 'percent' | 'number', decimals: number, signed = false): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   const shown = format === 'percent' ? value * 100 : value;
-  const magnitude = Math.abs(shown);
+  // below 1e-12 is the rounding of the arithmetic, not a change
+  const magnitude = Math.abs(shown) < 1e-12 ? 0 : Math.abs(shown);
   const tiny = magnitude > 0 && magnitude < 0.5 * 10 ** -decimals;
   const text = tiny
     ? magnitude.toLocaleString('en-GB', { maximumSignificantDigits: 2 })
@@ -35,4 +36,13 @@ export function formatSmall(value: number | null | undefined): string {
   const mantissa = magnitude / 10 ** exponent;
   const superscript = String(exponent).replace('-', '⁻').replace(/\d/g, (d) => '⁰¹²³⁴⁵⁶⁷⁸⁹'[Number(d)]);
   return `${sign}${mantissa.toLocaleString('en-GB', { maximumSignificantDigits: 3 })} × 10${superscript}`;
+}
+
+/** A heat-map cell: fixed decimals and no unit, so the map stays compact; what rounds to zero shows as 0. */
+export function formatCell(value: number | null | undefined, format: 'percent' | 'number', decimals: number): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const shown = format === 'percent' ? value * 100 : value;
+  const text = Math.abs(shown).toLocaleString('en-GB', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+  if (Number(text.replaceAll(',', '')) === 0) return '0';
+  return `${shown < 0 ? '−' : '+'}${text}`;
 }

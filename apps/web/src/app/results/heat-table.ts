@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { ExportTable } from '../shared/table-export';
-import { formatValue } from './format';
+import { formatCell, formatValue } from './format';
 import { heatColour, largestMagnitude } from './heat-colour';
 
 /**
@@ -27,7 +27,7 @@ import { heatColour, largestMagnitude } from './heat-colour';
             <tr>
               <th scope="row">{{ row[0] }}</th>
               @for (cell of row.slice(1); track $index) {
-                <td [style.background]="colour(cell)" [class.strong]="strong(cell)">{{ show(cell) }}</td>
+                <td [style.background]="colour(cell)" [class.strong]="strong(cell)" [class.zero]="show(cell) === '0'">{{ show(cell) }}</td>
               }
             </tr>
           }
@@ -38,7 +38,7 @@ import { heatColour, largestMagnitude } from './heat-colour';
       <span class="swatch" [style.background]="colourOf(-1)"></span> lowers
       <span class="swatch" [style.background]="colourOf(0)"></span> no effect
       <span class="swatch" [style.background]="colourOf(1)"></span> raises
-      <span class="quiet">(darker = larger; largest shown {{ show(extent()) }})</span>
+      <span class="quiet">(darker = larger; largest shown {{ showExtent() }})</span>
     </p>
   `,
   styleUrl: './result-tables.scss',
@@ -46,8 +46,9 @@ import { heatColour, largestMagnitude } from './heat-colour';
     .corner { vertical-align: bottom; min-width: 10em; }
     .vertical { height: 150px; vertical-align: bottom; text-align: center; padding: 4px 2px; }
     .vertical span { writing-mode: vertical-rl; transform: rotate(180deg); display: inline-block; text-align: left; white-space: nowrap; }
-    .heat td { font-variant-numeric: tabular-nums; text-align: center; min-width: 3.4em; }
-    .heat td.strong { color: #fff; }
+    table.dense.heat td { font-variant-numeric: tabular-nums; text-align: center; min-width: 3.6em; padding: 4px 3px; }
+    .heat td.zero { color: var(--mat-sys-outline); }
+    table.dense.heat td.strong { color: #fff; }
     .key { display: flex; align-items: center; gap: 6px; flex-wrap: wrap; font: var(--mat-sys-body-small); margin: 6px 0 0; }
     .swatch { display: inline-block; width: 14px; height: 14px; border: 1px solid var(--mat-sys-outline-variant); }
   `,
@@ -71,6 +72,9 @@ export class HeatTable {
     return typeof cell === 'number' && this.extent() > 0 && Math.abs(cell) / this.extent() > 0.6;
   }
   protected show(cell: unknown): string {
-    return formatValue(typeof cell === 'number' ? cell : null, this.format(), this.decimals(), true);
+    return formatCell(typeof cell === 'number' ? cell : null, this.format(), this.decimals());
+  }
+  protected showExtent(): string {
+    return formatValue(this.extent(), this.format(), this.decimals() + 1, true);
   }
 }

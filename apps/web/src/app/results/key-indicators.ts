@@ -25,6 +25,9 @@ import { indicatorTable, type IndicatorRow } from './result-tables';
               <span class="before"><small>Before</small>{{ show(row, row.baseline) }}</span>
               <span class="arrow" aria-hidden="true">→</span>
               <span class="after"><small>After</small>{{ show(row, row.option) }}</span>
+              @if (unitOf(row)) {
+                <span class="unit">{{ unitOf(row) }}</span>
+              }
             </p>
             <p class="change">
               Change <strong>{{ show(row, row.difference, true) }}</strong>
@@ -35,10 +38,10 @@ import { indicatorTable, type IndicatorRow } from './result-tables';
               }
             </p>
             @if (row.band; as band) {
-              <p class="band">
+              <div class="band">
                 <sw-difference-band [band]="band" [robust]="row.robust" />
-                <span>5–95 %: {{ show(row, band.p5, true) }} to {{ show(row, band.p95, true) }}</span>
-              </p>
+                <span>9 draws in 10 put the change between {{ show(row, band.p5, true) }} and {{ show(row, band.p95, true) }}</span>
+              </div>
             } @else {
               <p class="band">No draws were run: no band.</p>
             }
@@ -49,7 +52,7 @@ import { indicatorTable, type IndicatorRow } from './result-tables';
     <p class="legend">
       <strong>How to read this.</strong> “Before” is the baseline web, “after” the web once the option is applied.
       @if (draws()) {
-        The grey or teal bar is the band in which 90 % of the {{ draws() }} draws put the change (from the 5 % to the 95 % draw), the dark tick its middle draw,
+        The bar is the band in which 90 % of the {{ draws() }} draws put the change (from the 5 % to the 95 % draw), the dark tick its middle draw,
         and the dashed line is no change.
         <span class="mark"><mat-icon aria-hidden="true" inline>verified</mat-icon> Robust</span> means the whole band lies on one side of zero: the direction of the change holds across the uncertainty in the data.
         <span class="not-robust"><mat-icon aria-hidden="true" inline>help</mat-icon> Direction uncertain</span> means the band includes zero: the data cannot tell whether the indicator goes up or down.
@@ -89,7 +92,10 @@ import { indicatorTable, type IndicatorRow } from './result-tables';
     .after { color: var(--mat-sys-primary); }
     .arrow { color: var(--mat-sys-outline); }
     .change { font: var(--mat-sys-title-medium); margin: 4px 0; }
-    .band { display: flex; align-items: center; gap: 8px; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); margin: 4px 0 0; }
+    .band { display: flex; flex-direction: column; gap: 2px; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); margin: 8px 0 0; }
+    .change .mark, .change .not-robust { margin-left: 10px; font: var(--mat-sys-label-large); }
+    .unit { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); align-self: flex-end; padding-bottom: 4px; }
+    .robust-card { border-color: var(--mat-sys-primary); }
     .legend { font: var(--mat-sys-body-medium); max-width: 80ch; }
   `,
 })
@@ -97,9 +103,15 @@ export class KeyIndicators {
   readonly rows = input.required<readonly IndicatorRow[]>();
   readonly draws = input<number | null>(null);
   readonly prefix = input('run');
+  /** The web's unit of flows, shown beside the amounts that are in it. */
+  readonly unit = input('');
 
   protected readonly headline = computed(() => HEADLINE_KEYS.map((k) => this.rows().find((r) => r.key === k)).filter((r): r is IndicatorRow => !!r));
   protected readonly table = computed(() => indicatorTable(this.rows()));
+
+  protected unitOf(row: IndicatorRow): string {
+    return row.key === 'totalCatch' || row.key === 'primaryProductionRequired' ? this.unit() : '';
+  }
 
   protected show(row: IndicatorRow, value: number | null | undefined, signed = false): string {
     return formatValue(value, row.format, row.decimals, signed);

@@ -48,7 +48,7 @@ import type { ScenarioDocument } from './result-document';
                   <th scope="row">{{ r.from }} → {{ r.to }}</th>
                   <td>{{ flow(r.value) }}</td>
                   <td>{{ r.cycles }}</td>
-                  <td class="cycle">{{ r.longest }}</td>
+                  <td class="wrap cycle">{{ r.longest }}</td>
                 </tr>
               }
             </tbody>
@@ -60,7 +60,7 @@ import type { ScenarioDocument } from './result-document';
   styleUrl: './result-tables.scss',
   styles: `
     table.summary { width: auto; min-width: min(100%, 560px); }
-    td.cycle { white-space: normal; text-align: left; min-width: 24em; }
+    table.dense td.cycle { min-width: 24em; }
   `,
 })
 export class RecyclingSection {

@@ -7,7 +7,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Caution } from '../shared/caution';
 import { CsvButton } from '../shared/csv-button';
-import { FitnessCurve } from '../shared/fitness-curve';
 import { downloadXlsx } from '../shared/table-export';
 import { DependenceSection } from './dependence-section';
 import { FleetEffects } from './fleet-effects';
@@ -17,6 +16,7 @@ import { KeyIndicators } from './key-indicators';
 import { LadderChart } from './ladder-chart';
 import { PositionsTable } from './positions-table';
 import { RecyclingSection } from './recycling-section';
+import { ResultFitnessCurve } from './result-fitness-curve';
 import { allTables, describeAdjustment, fitnessTable } from './result-tables';
 import { ResultsStore } from './results-store';
 import { SensitivityTable } from './sensitivity-table';
@@ -44,7 +44,7 @@ const SECTIONS = [
     Caution,
     CsvButton,
     DependenceSection,
-    FitnessCurve,
+    ResultFitnessCurve,
     FleetEffects,
     FleetTable,
     KeyIndicators,
@@ -72,9 +72,6 @@ export class ResultPage {
   protected readonly unit = computed(() => this.store.doc()?.baseline.unit ?? '');
   protected readonly adjustments = computed(() =>
     (this.store.run()?.inputs.option.adjustments ?? []).map((a) => describeAdjustment(a, this.store.doc(), this.unit())),
-  );
-  protected readonly placed = computed(() =>
-    this.store.fitness().map((r) => ({ label: r.label, relativeAscendency: r.relativeAscendency, robustness: r.robustness })),
   );
   protected readonly fitnessExport = computed(() => fitnessTable(this.store.fitness()));
 

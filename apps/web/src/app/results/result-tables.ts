@@ -1,4 +1,5 @@
 import { SCALAR_INDICATORS, type Adjustment } from '@seinework/contracts';
+import type { ChartConfiguration } from 'chart.js';
 import type { ExportTable } from '../shared/table-export';
 import { bandExcludesZero, type Band, type HarvestSensitivity, type ScenarioDocument } from './result-document';
 import { INDICATOR_LABELS, type IndicatorKey } from './indicator-labels';
@@ -361,4 +362,40 @@ export function allTables(doc: ScenarioDocument, sensitivity: readonly Sensitivi
   ];
   if (sensitivity.length > 0) tables.push(sensitivityTable(sensitivity));
   return tables;
+}
+
+const FITNESS_STYLE = {
+  Baseline: { colour: '#5c6b73', point: 'circle' },
+  'With the option': { colour: '#00696d', point: 'triangle' },
+} as const;
+
+/**
+ * The two points and their 5–95 % bands (a horizontal segment for a, a vertical one for F) as
+ * scatter datasets, and the box that holds them all, padded, for the close-up.
+ */
+export function fitnessPlot(rows: readonly FitnessRow[]): {
+  datasets: ChartConfiguration<'scatter'>['data']['datasets'];
+  bounds: { xMin: number; xMax: number; yMin: number; yMax: number } | null;
+} {
+  const datasets: ChartConfiguration<'scatter'>['data']['datasets'] = [];
+  const xs: number[] = [];
+  const ys: number[] = [];
+  for (const r of rows) {
+    const style = FITNESS_STYLE[r.label as keyof typeof FITNESS_STYLE] ?? FITNESS_STYLE['With the option'];
+    xs.push(r.relativeAscendency);
+    ys.push(r.robustness);
+    if (r.aBand) {
+      datasets.push({ label: `${r.label} band of a`, data: [{ x: r.aBand.p5, y: r.robustness }, { x: r.aBand.p95, y: r.robustness }], showLine: true, pointRadius: 0, borderColor: style.colour, borderWidth: 2 });
+      xs.push(r.aBand.p5, r.aBand.p95);
+    }
+    if (r.fBand) {
+      datasets.push({ label: `${r.label} band of F`, data: [{ x: r.relativeAscendency, y: r.fBand.p5 }, { x: r.relativeAscendency, y: r.fBand.p95 }], showLine: true, pointRadius: 0, borderColor: style.colour, borderWidth: 2 });
+      ys.push(r.fBand.p5, r.fBand.p95);
+    }
+    datasets.push({ label: r.label, data: [{ x: r.relativeAscendency, y: r.robustness }], pointRadius: 7, pointStyle: style.point, backgroundColor: style.colour, borderColor: '#fff', borderWidth: 1 });
+  }
+  if (xs.length === 0) return { datasets, bounds: null };
+  const pad = (lo: number, hi: number) => Math.max((hi - lo) * 0.15, 1e-4);
+  const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)];
+  return { datasets, bounds: { xMin: x0 - pad(x0, x1), xMax: x1 + pad(x0, x1), yMin: y0 - pad(y0, y1), yMax: y1 + pad(y0, y1) } };
 }

@@ -15,19 +15,19 @@ import { sensitivityTable, type SensitivityRow } from './result-tables';
     </div>
     <p class="note">
       Each existing catch raised by 1 % on its own, under the same response rule as this option ({{ response() }}). Rows that bring
-      the web closer to the peak of the fitness curve come first. A guide to which catches the web is most sensitive to, not an option.
+      the web closer to the peak of the fitness curve come first. Each figure is the change of that indicator for the 1 %. A guide to which catches the web is most sensitive to, not an option.
     </p>
     <div class="scroll" tabindex="0" role="region" aria-label="Harvest sensitivity, scrollable">
       <table class="dense" aria-label="Harvest sensitivity of the baseline: change per 1 % more of each catch">
         <thead>
           <tr>
             <th scope="col">Fleet</th>
-            <th scope="col">Compartment caught</th>
+            <th scope="col" class="text">Compartment caught</th>
             <th scope="col">Catch ({{ unit() }})</th>
             <th scope="col">Total catch</th>
             <th scope="col">Mean trophic level of the catch</th>
             <th scope="col">Fitness</th>
-            <th scope="col">Distance from the peak</th>
+            <th scope="col">Distance from the peak (− = toward it)</th>
             <th scope="col">Catch value</th>
           </tr>
         </thead>
@@ -57,8 +57,7 @@ import { sensitivityTable, type SensitivityRow } from './result-tables';
   `,
   styleUrl: './result-tables.scss',
   styles: `
-    td.text { text-align: left; }
-    .refused { color: var(--mat-sys-error); white-space: normal; }
+    table.dense td.refused { color: var(--mat-sys-error); white-space: normal; text-align: left; }
     .toward { display: block; font-size: 0.75rem; color: var(--mat-sys-primary); }
   `,
 })
