@@ -18,12 +18,12 @@ import { fleetTable, type FleetRow } from './result-tables';
         <thead>
           <tr>
             <th scope="col">Fleet</th>
-            <th scope="col">Catch ({{ unit() }})</th>
+            <th scope="col">Catch <span class="nowrap">({{ unit() }})</span></th>
             <th scope="col">Tonnes per year</th>
             <th scope="col">Value</th>
             <th scope="col">Mean trophic level of the catch</th>
             <th scope="col">Fishing-in-Balance</th>
-            <th scope="col">Primary production required ({{ unit() }})</th>
+            <th scope="col">Primary production required <span class="nowrap">({{ unit() }})</span></th>
           </tr>
         </thead>
         <tbody>

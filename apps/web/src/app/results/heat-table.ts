@@ -44,6 +44,7 @@ import { heatColour, largestMagnitude } from './heat-colour';
   styleUrl: './result-tables.scss',
   styles: `
     .corner { vertical-align: bottom; min-width: 10em; }
+    table.dense.heat thead th.vertical { min-width: 0; }
     .vertical { height: 150px; vertical-align: bottom; text-align: center; padding: 4px 2px; }
     .vertical span { writing-mode: vertical-rl; transform: rotate(180deg); display: inline-block; text-align: left; white-space: nowrap; }
     table.dense.heat td { font-variant-numeric: tabular-nums; text-align: center; min-width: 3.6em; padding: 4px 3px; }

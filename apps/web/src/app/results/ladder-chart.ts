@@ -37,8 +37,8 @@ const AFTER = '#00696d';
             <th scope="colgroup" colspan="3">After</th>
           </tr>
           <tr>
-            <th scope="col">Input ({{ unit() }})</th><th scope="col">Passed on</th><th scope="col">Transfer efficiency</th>
-            <th scope="col">Input ({{ unit() }})</th><th scope="col">Passed on</th><th scope="col">Transfer efficiency</th>
+            <th scope="col">Input <span class="nowrap">({{ unit() }})</span></th><th scope="col">Passed on</th><th scope="col">Transfer efficiency</th>
+            <th scope="col">Input <span class="nowrap">({{ unit() }})</span></th><th scope="col">Passed on</th><th scope="col">Transfer efficiency</th>
           </tr>
         </thead>
         <tbody>

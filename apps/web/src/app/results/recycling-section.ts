@@ -40,7 +40,7 @@ import type { ScenarioDocument } from './result-document';
         <div class="scroll" tabindex="0" role="region" [attr.aria-label]="'Weak arcs ' + which + ', scrollable'">
           <table class="dense arcs" [attr.aria-label]="'Weak arcs and the cycles through them, ' + (which === 'baseline' ? 'before' : 'after') + ' the option'">
             <thead>
-              <tr><th scope="col">Weak arc</th><th scope="col">Flow on it ({{ unit() }})</th><th scope="col">Cycles through it</th><th scope="col">Longest of those cycles</th></tr>
+              <tr><th scope="col">Weak arc</th><th scope="col">Flow on it <span class="nowrap">({{ unit() }})</span></th><th scope="col">Cycles through it</th><th scope="col" class="text">Longest of those cycles</th></tr>
             </thead>
             <tbody>
               @for (r of arcs(which); track $index) {

@@ -7,7 +7,7 @@ import { fitnessPlot, type FitnessRow } from './result-tables';
 
 /**
  * The fitness curve of the shared pieces (fitness-curve-data.ts) with the run's two webs told apart
- * (baseline a grey circle, the option a teal triangle) and the 5–95 % band of each drawn as a cross.
+ * (baseline a grey circle, the option an orange triangle) and the 5–95 % band of each drawn as a cross.
  * "Close up" zooms to the two points, which on the whole curve often sit on top of each other.
  */
 @Component({
@@ -36,6 +36,15 @@ export class ResultFitnessCurve {
 
   protected readonly data = computed<ChartConfiguration<'scatter'>['data']>(() => {
     const base = fitnessCurveData([]);
+    const bounds = this.plot().bounds;
+    if (this.zoom() === 'close' && bounds) {
+      // a finer curve over the close-up, so that it is drawn smooth
+      const steps = 120;
+      base.datasets[0].data = Array.from({ length: steps + 1 }, (_, k) => {
+        const a = bounds.xMin + ((bounds.xMax - bounds.xMin) * k) / steps;
+        return { x: a, y: a <= 0 ? 0 : -a * Math.log(a) };
+      });
+    }
     return { datasets: [...base.datasets, ...this.plot().datasets] };
   });
 
@@ -51,7 +60,7 @@ export class ResultFitnessCurve {
           }
         : fitnessCurveOptions!.scales,
       plugins: {
-        legend: { position: 'bottom', labels: { filter: (item) => !item.text.includes('band') } },
+        legend: { position: 'bottom', labels: { usePointStyle: true, filter: (item) => !item.text.includes('band') } },
         tooltip: { callbacks: { label: (item) => `${item.dataset.label}: a = ${(item.raw as { x: number }).x.toFixed(4)}, F = ${(item.raw as { y: number }).y.toFixed(4)}` } },
       },
     };

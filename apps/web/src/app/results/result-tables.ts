@@ -365,8 +365,9 @@ export function allTables(doc: ScenarioDocument, sensitivity: readonly Sensitivi
 }
 
 const FITNESS_STYLE = {
-  Baseline: { colour: '#5c6b73', point: 'circle' },
-  'With the option': { colour: '#00696d', point: 'triangle' },
+  // chart.js draws lower `order` on top: the option's triangle over the baseline's larger circle
+  Baseline: { colour: '#5c6b73', point: 'circle', radius: 9, order: 2 },
+  'With the option': { colour: '#b4530b', point: 'triangle', radius: 7, order: 1 },
 } as const;
 
 /**
@@ -385,14 +386,14 @@ export function fitnessPlot(rows: readonly FitnessRow[]): {
     xs.push(r.relativeAscendency);
     ys.push(r.robustness);
     if (r.aBand) {
-      datasets.push({ label: `${r.label} band of a`, data: [{ x: r.aBand.p5, y: r.robustness }, { x: r.aBand.p95, y: r.robustness }], showLine: true, pointRadius: 0, borderColor: style.colour, borderWidth: 2 });
+      datasets.push({ label: `${r.label} band of a`, data: [{ x: r.aBand.p5, y: r.robustness }, { x: r.aBand.p95, y: r.robustness }], showLine: true, pointRadius: 0, borderColor: style.colour, borderWidth: 2, order: 3 });
       xs.push(r.aBand.p5, r.aBand.p95);
     }
     if (r.fBand) {
-      datasets.push({ label: `${r.label} band of F`, data: [{ x: r.relativeAscendency, y: r.fBand.p5 }, { x: r.relativeAscendency, y: r.fBand.p95 }], showLine: true, pointRadius: 0, borderColor: style.colour, borderWidth: 2 });
+      datasets.push({ label: `${r.label} band of F`, data: [{ x: r.relativeAscendency, y: r.fBand.p5 }, { x: r.relativeAscendency, y: r.fBand.p95 }], showLine: true, pointRadius: 0, borderColor: style.colour, borderWidth: 2, order: 3 });
       ys.push(r.fBand.p5, r.fBand.p95);
     }
-    datasets.push({ label: r.label, data: [{ x: r.relativeAscendency, y: r.robustness }], pointRadius: 7, pointStyle: style.point, backgroundColor: style.colour, borderColor: '#fff', borderWidth: 1 });
+    datasets.push({ label: r.label, data: [{ x: r.relativeAscendency, y: r.robustness }], pointRadius: style.radius, pointStyle: style.point, backgroundColor: style.colour, borderColor: '#fff', borderWidth: 1, order: style.order });
   }
   if (xs.length === 0) return { datasets, bounds: null };
   const pad = (lo: number, hi: number) => Math.max((hi - lo) * 0.15, 1e-4);

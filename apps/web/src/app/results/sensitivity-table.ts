@@ -23,7 +23,7 @@ import { sensitivityTable, type SensitivityRow } from './result-tables';
           <tr>
             <th scope="col">Fleet</th>
             <th scope="col" class="text">Compartment caught</th>
-            <th scope="col">Catch ({{ unit() }})</th>
+            <th scope="col">Catch <span class="nowrap">({{ unit() }})</span></th>
             <th scope="col">Total catch</th>
             <th scope="col">Mean trophic level of the catch</th>
             <th scope="col">Fitness</th>
