@@ -16,7 +16,7 @@ import { heatColour, largestMagnitude } from './heat-colour';
       <table class="dense heat" [attr.aria-label]="label()">
         <thead>
           <tr>
-            <th scope="col" class="corner">{{ table().columns[0] }}</th>
+            <th scope="col" class="corner">{{ corner() }}</th>
             @for (c of table().columns.slice(1); track $index) {
               <th scope="col" class="vertical"><span>{{ c }}</span></th>
             }
@@ -62,6 +62,12 @@ export class HeatTable {
 
   protected readonly extent = computed(() => largestMagnitude(this.table().rows.flatMap((r) => r.slice(1).map((c) => (typeof c === 'number' ? c : null)))));
 
+  /** The CSV's first column name, capitalised for the screen. */
+  protected readonly corner = computed(() => {
+    const name = this.table().columns[0] ?? '';
+    return name.charAt(0).toUpperCase() + name.slice(1);
+  });
+
   protected colour(cell: unknown): string {
     return heatColour(typeof cell === 'number' ? cell : null, this.extent());
   }
@@ -76,6 +82,6 @@ export class HeatTable {
     return formatCell(typeof cell === 'number' ? cell : null, this.format(), this.decimals());
   }
   protected showExtent(): string {
-    return formatValue(this.extent(), this.format(), this.decimals() + 1, true);
+    return '±' + formatValue(this.extent(), this.format(), this.decimals() + 1);
   }
 }
