@@ -18,6 +18,7 @@ export const routes: Routes = [
       { path: 'discussions', loadChildren: () => import('./discussion/discussion-routes').then((m) => m.discussionRoutes) },
       // the link in "a new comment on an option you follow" e-mails
       { path: 'options/:optionId/discussion', redirectTo: '/discussions/:optionId' },
+      { path: 'runs', loadChildren: () => import('./results/results-routes').then((m) => m.resultsRoutes) },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
       { path: 'brief', loadChildren: () => import('./brief/brief-routes').then((m) => m.briefRoutes) },
