@@ -1,6 +1,7 @@
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { ComparedIndicator } from '@seinework/contracts';
 import type { PlacedWeb } from '../shared/fitness-curve-data';
+import { formatChange, formatFigure } from './indicator-names';
 
 /**
  * The comparison's charts: each key indicator's difference per option with its 5–95 % band, and
@@ -10,7 +11,7 @@ import type { PlacedWeb } from '../shared/fitness-curve-data';
 
 // Seinework's palette for compared options (deep cyan, buoy orange, kelp green, plum, slate, sand).
 export const OPTION_COLOURS = ['#00696d', '#b4530b', '#4c7a2a', '#7b4f8c', '#3f5a78', '#8a6d1f'];
-export const OPTION_POINTS = ['circle', 'rect', 'triangle', 'rectRot', 'star', 'crossRot'] as const;
+export const OPTION_POINTS = ['circle', 'rect', 'triangle', 'rectRot', 'star', 'rectRounded'] as const;
 const BASELINE_COLOUR = '#5c6b73';
 const CURVE_COLOUR = '#9aa8ae';
 
@@ -58,11 +59,18 @@ export const differenceChartOptions: DifferenceChart['options'] = {
   scales: {
     x: {
       title: { display: true, text: 'Difference from the baseline (0 = no change)' },
+      ticks: { maxRotation: 0, autoSkipPadding: 12, callback: (value) => tickOfChange(Number(value)) },
       grid: { color: (context) => (context.tick?.value === 0 ? '#1b1f20' : '#e0e4e5'), lineWidth: (context) => (context.tick?.value === 0 ? 2 : 1) },
     },
   },
-  plugins: { legend: { position: 'bottom' } },
+  // the options are named on the axis and the bars explained beside the charts; a legend would repeat one colour per series
+  plugins: { legend: { display: false } },
 };
+
+/** A tick of a difference axis: numerical noise around zero reads as 0. */
+function tickOfChange(value: number): string {
+  return Math.abs(value) < 1e-15 ? '0' : formatChange(value);
+}
 
 /**
  * The fitness curve close up around the placed webs: the differences options make are small
@@ -82,8 +90,8 @@ export function fitnessCloseUpData(webs: readonly PlacedWeb[]): ChartConfigurati
       return {
         label: web.label,
         data: [{ x: web.relativeAscendency, y: web.robustness }],
-        pointRadius: 8,
-        pointStyle: i === 0 ? ('line' as const) : OPTION_POINTS[(i - 1) % OPTION_POINTS.length],
+        pointRadius: i === 0 ? 9 : 8,
+        pointStyle: i === 0 ? ('crossRot' as const) : OPTION_POINTS[(i - 1) % OPTION_POINTS.length],
         borderWidth: i === 0 ? 3 : 1,
         backgroundColor: colour,
         borderColor: i === 0 ? colour : '#1b1f20',
@@ -103,10 +111,10 @@ export function fitnessCloseUpOptions(webs: readonly PlacedWeb[]): ChartConfigur
     maintainAspectRatio: false,
     animation: false,
     scales: {
-      x: { min: low, max: high, title: { display: true, text: 'Relative ascendency a (constraint →)' } },
-      y: { min: yLow, max: yHigh, title: { display: true, text: 'Fitness F' } },
+      x: { min: low, max: high, ticks: { includeBounds: false, callback: (value) => formatFigure(Number(value)) }, title: { display: true, text: 'Relative ascendency a (constraint →)' } },
+      y: { min: yLow, max: yHigh, ticks: { includeBounds: false }, title: { display: true, text: 'Fitness F' } },
     },
-    plugins: { legend: { position: 'bottom' } },
+    plugins: { legend: { position: 'bottom', labels: { usePointStyle: true } } },
   };
 }
 

@@ -58,8 +58,7 @@ export const CompareStore = signalStore(
   withState<CompareState>(initial),
   withComputed((store) => ({
     publishedVersions: computed(() => (store.web()?.versions ?? []).filter((v) => v.status === 'published')),
-    /** Options whose latest run finished: only those can be compared. */
-    comparable: computed(() => store.options().filter((o) => o.latestRun?.status === 'done')),
+    /** Options whose latest run has not finished: they cannot be compared yet. */
     notReady: computed(() => store.options().filter((o) => o.latestRun?.status !== 'done').length),
     canCompare: computed(() => store.picked().length >= MIN_COMPARED && store.picked().length <= MAX_COMPARED),
     /** One letter per compared run (A, B, …), in the order of the URL, for headers, tables and charts. */

@@ -43,12 +43,12 @@ import { formatChange, formatFigure, INDICATOR_NAMES, KEY_INDICATORS } from './i
     <h2>Where each option leaves the web on the fitness curve</h2>
     <p class="explain">
       Relative ascendency <em>a</em> measures how constrained the flows are; fitness <em>F</em> = −<em>a</em> ln <em>a</em> is highest
-      at <em>a</em> = 1/e ≈ 0.368. On the whole curve the options sit almost on the baseline; the close-up beside it spreads them apart.
+      at <em>a</em> = 1/e ≈ 0.368. On the whole curve the options sit on the baseline's spot; the close-up beside it spreads them apart.
     </p>
     <div class="charts fitness">
       <figure>
         <figcaption>The whole curve</figcaption>
-        <sw-fitness-curve [webs]="placed()" />
+        <sw-fitness-curve [webs]="placed().slice(0, 1)" />
       </figure>
       <figure>
         <figcaption>Close up</figcaption>

@@ -43,7 +43,7 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
             <td mat-cell *matCellDef="let row" class="number option-start">{{ figure(valueOf(row, run.runId)?.after ?? null) }}</td>
           </ng-container>
           <ng-container [matColumnDef]="'difference:' + run.runId">
-            <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" class="number">Change <span class="visually-hidden">option {{ run.letter }}</span></th>
+            <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" class="number">Change, 5–95 % band <span class="visually-hidden">option {{ run.letter }}</span></th>
             <td mat-cell *matCellDef="let row" class="number change">
               @if (valueOf(row, run.runId); as value) {
                 <span class="difference" [class.exceeds]="value.exceedsUncertainty">{{ change(value.difference) }}</span>
@@ -51,7 +51,7 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
                   <span class="mark"><mat-icon aria-hidden="true">flag</mat-icon> exceeds uncertainty</span>
                 }
                 @if (value.band; as band) {
-                  <span class="band">5–95 %: {{ change(band.p5) }} to {{ change(band.p95) }}</span>
+                  <span class="band"><span class="visually-hidden">5–95 % band </span>{{ change(band.p5) }} to {{ change(band.p95) }}</span>
                 } @else if (value.difference !== null) {
                   <span class="band">no band</span>
                 }
@@ -75,14 +75,16 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
     .mark mat-icon { font-size: 18px; width: 18px; height: 18px; }
     .number { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
     th.number { justify-content: flex-end; }
-    .name { min-width: 14em; }
+    .name { min-width: 10em; white-space: normal; }
+    th, td { padding: 6px 8px; }
+    th:first-child, td:first-child { padding-left: 0; }
     .change { vertical-align: top; padding-top: 8px; padding-bottom: 8px; }
     .change > span { display: block; }
     .change .mark { display: flex; justify-content: flex-end; }
     .difference.exceeds { font-weight: 700; }
     .band { font-size: 0.75rem; color: var(--mat-sys-on-surface-variant); }
     .group { font: var(--mat-sys-title-small); color: var(--mat-sys-on-surface); white-space: normal; }
-    .option-start { border-left: 1px solid var(--mat-sys-outline-variant); padding-left: 16px; }
+    .option-start { border-left: 1px solid var(--mat-sys-outline-variant); padding-left: 12px; }
     .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap; }
   `,
 })

@@ -6,6 +6,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
+import type { OptionSummary } from '@seinework/contracts';
 import { CompareStore, MAX_COMPARED, MIN_COMPARED } from './compare-store';
 
 /** Choosing what to compare: a web, one of its published versions (the baseline), and 2–6 options with a finished run. */
@@ -53,25 +54,30 @@ import { CompareStore, MAX_COMPARED, MIN_COMPARED } from './compare-store';
       <p class="error" role="alert">{{ error }}</p>
     }
     @if (store.versionId() && !store.optionsLoading() && !store.pickError()) {
-      @if (store.comparable().length === 0) {
-        <p class="empty">No option on this baseline has a finished run you may see yet.</p>
+      @if (store.options().length === 0) {
+        <p class="empty">There is no harvest option on this baseline that you may see yet.</p>
       } @else {
         <fieldset>
           <legend>Options on this baseline ({{ store.picked().length }} of {{ max }} ticked)</legend>
           <ul class="options">
-            @for (option of store.comparable(); track option.id) {
+            @for (option of store.options(); track option.id) {
               <li>
-                <mat-checkbox
-                  [checked]="store.picked().includes(option.latestRun!.id)"
-                  [disabled]="!store.picked().includes(option.latestRun!.id) && store.picked().length >= max"
-                  (change)="store.togglePick(option.latestRun!.id)"
-                >
-                  {{ option.name }}
-                </mat-checkbox>
-                <span class="facts">
-                  run of {{ option.latestRun!.draws }} draws, finished {{ option.latestRun!.finishedAt | date: 'd MMM y, HH:mm' }} ·
-                  <a [routerLink]="['/options', option.id]">about this option</a>
-                </span>
+                @if (option.latestRun?.status === 'done') {
+                  <mat-checkbox
+                    [checked]="store.picked().includes(option.latestRun!.id)"
+                    [disabled]="!store.picked().includes(option.latestRun!.id) && store.picked().length >= max"
+                    (change)="store.togglePick(option.latestRun!.id)"
+                  >
+                    {{ option.name }}
+                  </mat-checkbox>
+                  <span class="facts">
+                    run of {{ option.latestRun!.draws }} draws, finished {{ option.latestRun!.finishedAt | date: 'd MMM y, HH:mm' }} ·
+                    <a [routerLink]="['/options', option.id]">about this option</a>
+                  </span>
+                } @else {
+                  <mat-checkbox disabled>{{ option.name }}</mat-checkbox>
+                  <span class="facts">{{ notReadyText(option) }} · <a [routerLink]="['/options', option.id]">about this option</a></span>
+                }
                 @if (option.purpose) {
                   <span class="purpose">{{ option.purpose }}</span>
                 }
@@ -80,7 +86,10 @@ import { CompareStore, MAX_COMPARED, MIN_COMPARED } from './compare-store';
           </ul>
         </fieldset>
         @if (store.notReady() > 0) {
-          <p class="quiet">{{ store.notReady() }} other option(s) on this baseline have no finished run and cannot be compared yet.</p>
+          <p class="quiet">
+            Options without a finished run cannot be compared yet.
+            <button mat-button type="button" (click)="store.chooseVersion(store.versionId()!)">Check again</button>
+          </p>
         }
         <div class="actions">
           <button mat-flat-button type="button" [disabled]="!store.canCompare()" (click)="compareRuns.emit(store.picked())">Compare</button>
@@ -113,4 +122,12 @@ export class RunPicker {
   protected readonly min = MIN_COMPARED;
   protected readonly max = MAX_COMPARED;
   readonly compareRuns = output<readonly string[]>();
+
+  protected notReadyText(option: OptionSummary): string {
+    const run = option.latestRun;
+    if (!run) return 'not run yet';
+    if (run.status === 'queued') return 'its run is waiting to start';
+    if (run.status === 'running') return `its run is under way (${run.progress.done} of ${run.progress.total} draws)`;
+    return `its latest run ${run.status === 'failed' ? 'failed' : 'was cancelled'}`;
+  }
 }
