@@ -14,6 +14,7 @@ export const routes: Routes = [
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'webs' },
       { path: 'webs', canActivate: [allowedTo('webs.read-published')], loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
+      { path: 'compare', loadChildren: () => import('./compare/compare-routes').then((m) => m.compareRoutes) },
       { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
       { path: 'discussions', loadChildren: () => import('./discussion/discussion-routes').then((m) => m.discussionRoutes) },
       // the link in "a new comment on an option you follow" e-mails

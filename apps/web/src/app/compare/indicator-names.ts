@@ -1,0 +1,43 @@
+import type { ComparedIndicator } from '@seinework/contracts';
+
+export type IndicatorKey = ComparedIndicator['key'];
+
+/** Plain names of the compared indicators (published method names keep their usual names). */
+export const INDICATOR_NAMES: Record<IndicatorKey, string> = {
+  tst: 'Total system throughput',
+  totalSystemThroughflow: 'Total system throughflow',
+  developmentCapacity: 'Development capacity',
+  ascendency: 'Ascendency',
+  overhead: 'Overhead',
+  averageMutualInformation: 'Average mutual information',
+  flowDiversity: 'Flow diversity',
+  relativeAscendency: 'Relative ascendency',
+  robustness: 'Fitness (robustness)',
+  effectiveRoles: 'Effective number of roles',
+  effectiveConnectance: 'Effective connectance',
+  finnCyclingIndex: 'Finn cycling index',
+  totalCatch: 'Total catch',
+  meanTrophicLevelOfCatch: 'Mean trophic level of the catch',
+  primaryProductionRequired: 'Primary production required',
+  primaryProductionRequiredShare: 'Share of primary production required',
+  fishingInBalance: 'Fishing-in-Balance',
+};
+
+/** The indicators charted side by side: the ones a council member reads first. */
+export const KEY_INDICATORS: readonly IndicatorKey[] = ['relativeAscendency', 'finnCyclingIndex', 'totalCatch', 'meanTrophicLevelOfCatch', 'primaryProductionRequiredShare'];
+
+const figure = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 4 });
+const large = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 1 });
+const change = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 3, signDisplay: 'exceptZero' });
+
+/** A value to four significant figures (whole numbers from 1,000 up), or a dash. */
+export function formatFigure(value: number | null): string {
+  if (value === null) return '—';
+  return Math.abs(value) >= 1000 ? large.format(value) : figure.format(value);
+}
+
+/** A difference with its sign, to three significant figures, or a dash; a true minus sign. */
+export function formatChange(value: number | null): string {
+  if (value === null) return '—';
+  return change.format(value).replace('-', '−');
+}
