@@ -4,7 +4,7 @@ export function figure(value: number | null, signed = false): string {
   const size = Math.abs(value);
   const digits = size >= 100 ? 0 : size >= 1 ? 2 : 3;
   const options: Intl.NumberFormatOptions =
-    size !== 0 && size < 1 ? { maximumSignificantDigits: digits } : { minimumFractionDigits: digits, maximumFractionDigits: digits };
+    size !== 0 && size < 1 ? { minimumSignificantDigits: digits, maximumSignificantDigits: digits } : { minimumFractionDigits: digits, maximumFractionDigits: digits };
   const text = value.toLocaleString('en-GB', options);
   return signed && value > 0 ? `+${text}` : text.replace('-', '−');
 }
