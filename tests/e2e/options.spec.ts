@@ -73,6 +73,16 @@ test('build a harvest option: refused adjustment, fix, preview, save, run and op
   await expect(runs.getByRole('row').nth(1)).toContainText('1,000');
   await shot(page, 'option-page-done');
 
+  // shared for council review with the finished run, then withdrawn again
+  await page.getByRole('button', { name: 'Share for council review' }).click();
+  const shares = page.getByRole('list', { name: 'Active shares' });
+  await expect(shares).toContainText('Shared for council review by Ana Demo (analyst)');
+  await expect(page.getByRole('button', { name: 'Share for council review' })).toBeDisabled();
+  await shot(page, 'option-page-shared');
+  await shares.getByRole('button', { name: 'Withdraw' }).click();
+  await expect(shares).toHaveCount(0);
+  await expect(page.getByText('Not shared: only analysts can see this option.')).toBeVisible();
+
   await runs.getByRole('link', { name: 'Open result' }).click();
   await expect(page).toHaveURL(/\/runs\/[0-9a-f-]+$/);
   await expect(page.getByRole('heading', { level: 1 })).toContainText(OPTION);

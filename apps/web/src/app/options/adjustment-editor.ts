@@ -24,6 +24,8 @@ export class AdjustmentEditor {
   readonly index = input.required<number>();
   readonly web = input.required<Web | null>();
   readonly problems = input<readonly string[]>([]);
+  /** What the adjustment still lacks (a quiet hint, not a refusal). */
+  readonly missing = input<string | null>(null);
   readonly changed = output<AdjustmentDraft>();
   readonly removed = output<void>();
 

@@ -35,7 +35,7 @@ interface OptionFormState {
   adjustments: AdjustmentDraft[];
   uncertainty: UncertaintySettings;
   preview: OptionPreview | null;
-  /** The engine's refusals (and what is still missing), each against its adjustment. */
+  /** The engine's refusals, each against its adjustment (null: the whole option). */
   problems: AdjustmentProblem[];
   checking: boolean;
   previewError: string | null;
@@ -129,7 +129,7 @@ export const OptionFormStore = signalStore(
       followPreview: rxMethod<StoredOptionBody | null>(
         pipe(
           tap((body) => {
-            if (!body) patchState(store, { problems: store.draft().problems, preview: null, checking: false, previewError: null });
+            if (!body) patchState(store, { problems: [], preview: null, checking: false, previewError: null });
           }),
           debounceTime(PREVIEW_DELAY_MS),
           filter((body): body is StoredOptionBody => body !== null),
@@ -165,9 +165,9 @@ export const OptionFormStore = signalStore(
 
       /** Stores the option; its id, or null when it was refused (the problems say why). */
       async save(): Promise<string | null> {
-        const { body, problems } = store.draft();
+        const { body } = store.draft();
         if (!body) {
-          patchState(store, { problems, saveError: 'Complete every adjustment before saving.' });
+          patchState(store, { saveError: 'Complete every adjustment before saving.' });
           return null;
         }
         if (!body.name) {

@@ -59,6 +59,11 @@ export class OptionForm {
     });
   }
 
+  /** What an adjustment still lacks before the engine can be asked. */
+  protected missingOf(index: number): string | null {
+    return this.store.draft().problems.find((p) => p.adjustment === index)?.problem ?? null;
+  }
+
   protected problemsOf(index: number): string[] {
     return this.store
       .problems()

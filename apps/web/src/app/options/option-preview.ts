@@ -16,9 +16,9 @@ import { KEY_INDICATORS } from './option-words';
         @for (row of indicators(); track row.key) {
           <tr>
             <th scope="row">{{ row.label }}</th>
-            <td>{{ figure(row.baseline) }}</td>
-            <td>{{ figure(row.option) }}</td>
-            <td>{{ figure(row.difference, true) }}</td>
+            <td>{{ row.format(row.baseline) }}</td>
+            <td>{{ row.format(row.option) }}</td>
+            <td>{{ row.format(row.difference, true) }}</td>
           </tr>
         }
       </tbody>
@@ -52,9 +52,12 @@ export class OptionPreviewTables {
 
   protected readonly figure = figure;
   protected readonly indicators = computed(() =>
-    KEY_INDICATORS.flatMap(({ key, label }) => {
+    KEY_INDICATORS.flatMap(({ key, label, inFlowUnit, share }) => {
       const row = this.preview().indicators.find((i) => i.key === key);
-      return row ? [{ ...row, label }] : [];
+      if (!row) return [];
+      // a share's difference is in percentage points
+      const format = share ? (value: number | null, signed = false) => (value === null ? '—' : `${figure(100 * value, signed)} ${signed ? 'points' : '%'}`) : figure;
+      return [{ ...row, label: inFlowUnit ? `${label} (${this.unit()})` : label, format }];
     }),
   );
 

@@ -126,11 +126,15 @@ export const OptionStore = signalStore(
       },
 
       async share(request: ShareRequest): Promise<boolean> {
-        const detail = store.detail();
-        if (!detail) return false;
-        const share = await act(() => firstValueFrom(api.share(detail.id, request)), 'The option was not shared');
-        if (share) patchState(store, { detail: { ...detail, shares: [...detail.shares, share] } });
-        return share !== null;
+        const optionId = store.detail()?.id;
+        if (!optionId) return false;
+        // the server answers the new share's id: the option is read again for its shares as stored
+        const detail = await act(async () => {
+          await firstValueFrom(api.share(optionId, request));
+          return firstValueFrom(api.detail(optionId));
+        }, 'The option was not shared');
+        if (detail) patchState(store, { detail });
+        return detail !== null;
       },
 
       async withdrawShare(shareId: string): Promise<void> {

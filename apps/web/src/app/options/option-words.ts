@@ -52,14 +52,17 @@ function amount(value: number): string {
 
 type IndicatorKey = OptionPreview['indicators'][number]['key'];
 
-/** The indicators the option form previews, in the order a council member reads them, and their names. */
-export const KEY_INDICATORS: readonly { key: IndicatorKey; label: string }[] = [
-  { key: 'totalCatch', label: 'Total catch' },
+/**
+ * The indicators the option form previews, in the order a council member reads them: their names,
+ * whether they are in the web's flow unit, and whether they are shares (printed as per cent).
+ */
+export const KEY_INDICATORS: readonly { key: IndicatorKey; label: string; inFlowUnit?: boolean; share?: boolean }[] = [
+  { key: 'totalCatch', label: 'Total catch', inFlowUnit: true },
   { key: 'meanTrophicLevelOfCatch', label: 'Mean trophic level of the catch' },
-  { key: 'primaryProductionRequiredShare', label: 'Share of primary production the catch requires' },
+  { key: 'primaryProductionRequiredShare', label: 'Share of primary production the catch requires', share: true },
   { key: 'relativeAscendency', label: 'Relative ascendency' },
   { key: 'robustness', label: 'Robustness (fitness)' },
-  { key: 'finnCyclingIndex', label: 'Finn cycling index' },
-  { key: 'totalSystemThroughflow', label: 'Total system throughflow' },
+  { key: 'finnCyclingIndex', label: 'Finn cycling index', share: true },
+  { key: 'totalSystemThroughflow', label: 'Total system throughflow', inFlowUnit: true },
   { key: 'fishingInBalance', label: 'Fishing-in-Balance against the baseline' },
 ];

@@ -74,8 +74,8 @@ export class OptionsApi {
     return this.http.post<RunSummary>(`/api/runs/${encodeURIComponent(runId)}/cancel`, {});
   }
 
-  share(optionId: string, request: ShareRequest): Observable<ShareSummary> {
-    return this.http.post<ShareSummary>(`${optionPath(optionId)}/shares`, request);
+  share(optionId: string, request: ShareRequest): Observable<Created> {
+    return this.http.post<Created>(`${optionPath(optionId)}/shares`, request);
   }
 
   withdrawShare(shareId: string): Observable<unknown> {

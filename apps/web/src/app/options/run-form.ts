@@ -17,7 +17,7 @@ import type { RunSettings } from './options-api';
       <mat-form-field appearance="outline">
         <mat-label>Draws</mat-label>
         <input matInput type="number" name="draws" required min="0" [max]="maxDraws" step="1" [ngModel]="draws()" (ngModelChange)="draws.set($event)" />
-        <mat-hint>0 to {{ maxDraws.toLocaleString('en-GB') }}; 0 runs without uncertainty</mat-hint>
+        <mat-hint>0 to {{ maxDraws.toLocaleString('en-GB') }}</mat-hint>
       </mat-form-field>
       <mat-form-field appearance="outline">
         <mat-label>Coefficient of variation</mat-label>
@@ -34,7 +34,7 @@ import type { RunSettings } from './options-api';
     }
   `,
   styles: `
-    .run-form { display: flex; flex-wrap: wrap; align-items: flex-start; gap: 0 12px; }
+    .run-form { display: flex; flex-wrap: wrap; align-items: flex-start; gap: 0 12px; margin-bottom: 16px; }
     .run-form mat-form-field { flex: 0 1 200px; }
     .run-form button { margin-top: 8px; }
     .error { color: var(--mat-sys-error); }
