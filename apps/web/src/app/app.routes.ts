@@ -15,10 +15,11 @@ export const routes: Routes = [
       { path: '', pathMatch: 'full', redirectTo: 'webs' },
       { path: 'webs', canActivate: [allowedTo('webs.read-published')], loadChildren: () => import('./webs/webs-routes').then((m) => m.websRoutes) },
       { path: 'compare', loadChildren: () => import('./compare/compare-routes').then((m) => m.compareRoutes) },
-      { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
-      { path: 'discussions', loadChildren: () => import('./discussion/discussion-routes').then((m) => m.discussionRoutes) },
       // the link in "a new comment on an option you follow" e-mails
       { path: 'options/:optionId/discussion', redirectTo: '/discussions/:optionId' },
+      { path: 'options', loadChildren: () => import('./options/options-routes').then((m) => m.optionsRoutes) },
+      { path: 'welcome', loadComponent: () => import('./shell/welcome').then((m) => m.Welcome), title: 'Welcome — Seinework' },
+      { path: 'discussions', loadChildren: () => import('./discussion/discussion-routes').then((m) => m.discussionRoutes) },
       { path: 'runs', loadChildren: () => import('./results/results-routes').then((m) => m.resultsRoutes) },
       { path: 'account', loadComponent: () => import('./auth/account').then((m) => m.Account), title: 'Your account — Seinework' },
       { path: 'admin', canActivate: [allowedTo('users.manage')], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },

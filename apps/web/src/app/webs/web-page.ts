@@ -11,6 +11,7 @@ import { MatTableModule } from '@angular/material/table';
 import type { VersionSummary } from '@seinework/contracts';
 import { SessionStore } from '../auth/session-store';
 import { FitnessCurve } from '../shared/fitness-curve';
+import { OptionList } from '../options/option-list';
 import { CloneDialog, type CloneDetails } from './clone-dialog';
 import { HeadlineIndicators } from './headline-indicators';
 import { TrophicPositions } from './trophic-positions';
@@ -31,6 +32,7 @@ import { WebPageStore } from './web-page-store';
     MatTableModule,
     FitnessCurve,
     HeadlineIndicators,
+    OptionList,
     TrophicPositions,
     VersionStatusChip,
     WebDiagram,

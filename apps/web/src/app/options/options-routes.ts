@@ -1,0 +1,9 @@
+import type { Routes } from '@angular/router';
+import { allowedTo } from '../auth/signed-in-guard';
+
+/** The harvest-options feature, loaded on first visit to /options. */
+export const optionsRoutes: Routes = [
+  { path: 'new', canActivate: [allowedTo('options.edit')], loadComponent: () => import('./option-form').then((m) => m.OptionForm), title: 'New harvest option — Seinework' },
+  { path: ':id', loadComponent: () => import('./option-page').then((m) => m.OptionPage), title: 'Harvest option — Seinework' },
+  { path: ':id/edit', canActivate: [allowedTo('options.edit')], loadComponent: () => import('./option-form').then((m) => m.OptionForm), title: 'Edit a harvest option — Seinework' },
+];
