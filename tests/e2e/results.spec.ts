@@ -135,12 +135,21 @@ test('a council member reads the result of a shared option: indicators with band
 test('the other shared runs show, and a run that does not exist says so', async ({ page }) => {
   const problems = watchForErrors(page);
   await signIn(page, 'council');
-  for (const option of (await sharedOptions(page)).filter((o) => !o.name.startsWith('Cut the forage-fish quota'))) {
+  const options = await sharedOptions(page);
+  for (const option of options.filter((o) => !o.name.startsWith('Cut the forage-fish quota'))) {
     await page.goto(`/runs/${option.latestRun!.id}`);
     await expect(page.getByRole('heading', { level: 1 })).toHaveText(`${option.name} — result`);
     await expect(page.getByRole('table', { name: 'Every indicator before and after the option' }).locator('tbody tr')).toHaveCount(16);
     await shot(page, `result-${option.name.slice(0, 30)}`);
   }
+  // on a tablet held upright: nothing may stick out of the page; wide tables scroll in their own box
+  await page.setViewportSize({ width: 768, height: 1024 });
+  await page.goto(`/runs/${options[0].latestRun!.id}`);
+  await expect(page.getByRole('table', { name: 'Every indicator before and after the option' })).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(768);
+  await shot(page, 'result-tablet');
+  await page.setViewportSize({ width: 1280, height: 800 });
+
   await page.goto('/runs/00000000-0000-4000-8000-000000000000');
   await expect(page.getByRole('alert')).toContainText('No such run');
   await shot(page, 'result-no-such-run');

@@ -30,5 +30,5 @@ export const INDICATOR_LABELS: Record<IndicatorKey, IndicatorLabel> = {
   effectiveConnectance: { name: 'Effective connectance', meaning: 'links per compartment, weighted by flow', format: 'number', decimals: 3 },
 };
 
-/** The four a council member reads first, shown large; the rest follow in the full table. */
+/** The six a council member reads first, shown large as cards; every indicator follows in the full table. */
 export const HEADLINE_KEYS: readonly IndicatorKey[] = ['totalCatch', 'meanTrophicLevelOfCatch', 'primaryProductionRequiredShare', 'robustness', 'relativeAscendency', 'finnCyclingIndex'];
