@@ -30,7 +30,8 @@ describe('the embedded database on disk', () => {
     const second = await openDatabase({ dataDir });
     const [analyst] = await second.db.select().from(users).where(eq(users.email, demoEmail('analyst')));
     expect(analyst.name).toBe('Renamed before the restart');
-    expect(await second.db.select().from(users)).toHaveLength(5);
+    // the five role accounts and the three invented stakeholders of the demo discussion
+    expect(await second.db.select().from(users)).toHaveLength(8);
     // seeded once: a database with users is left alone
     expect(await seedDemo(second, 'development')).toEqual({ seeded: false });
     await second.close();
