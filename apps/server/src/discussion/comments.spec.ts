@@ -3,7 +3,7 @@ import { COMMENTS_PAGE_SIZE, MAX_COMMENT_LENGTH, type CommentItem, type CommentP
 import { auditEvents, comments, follows } from '../db/schema';
 import { userId } from '../options/test-options';
 import { createTestApp, type TestAgent, type TestApp } from '../testing/test-app';
-import { sharedOption, type SharedOption } from './test-discussion';
+import { setClosesAt, sharedOption, type SharedOption } from './test-discussion';
 
 /** Posting, listing, editing and hiding comments (DEVELOPERS.md, "Discussion"). */
 
@@ -145,6 +145,16 @@ describe('editing', () => {
     expect(late.body.error).toMatch(/15 minutes/);
     expect((await stakeholder.get(commentsUrl(shared))).body.items[0]).toMatchObject({ text: 'First thoughts', editable: false });
     expect(await auditOf(`comment:${posted.body.id}`)).toEqual(['comment.posted', 'comment.edited']);
+  });
+
+  it('refuses an edit once the discussion closed, even within 15 minutes', async () => {
+    const shared = await sharedOption(t, 'public');
+    const posted = await stakeholder.post(commentsUrl(shared)).send({ text: 'Said in time' });
+    await setClosesAt(t, shared.shareId, new Date(Date.now() - 1000));
+    const late = await stakeholder.patch(`/api/comments/${posted.body.id}`).send({ text: 'Changed after closing' });
+    expect(late.status).toBe(403);
+    expect(late.body.error).toMatch(/closed on/);
+    expect((await stakeholder.get(commentsUrl(shared))).body.items[0]).toMatchObject({ text: 'Said in time', editable: false });
   });
 });
 

@@ -1,3 +1,5 @@
+import { eq } from 'drizzle-orm';
+import { auditEvents } from '../db/schema';
 import { ROLES, type CommentPage, type Role, type ShareAudience } from '@seinework/contracts';
 import { storeRun } from '../options/test-options';
 import { createTestApp, type TestAgent, type TestApp } from '../testing/test-app';
@@ -90,6 +92,12 @@ describe('what a stakeholder reads', () => {
     expect((await stakeholder.get(`/api/options/${shared.optionId}`)).status).toBe(404);
     expect((await stakeholder.get(`/api/runs/${shared.runId}`)).status).toBe(404);
     expect((await stakeholder.get(`/api/webs/${webId}/versions/${versionId}`)).status).toBe(404);
+    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `option:${shared.optionId}`));
+    expect(events.map((e) => [e.action, /for public comment|Public comment on/.test(e.detail)])).toEqual([
+      ['option.created', false],
+      ['option.shared', true],
+      ['option.share-withdrawn', true],
+    ]);
   });
 
   it('a baseline with no public option is 404 to a stakeholder; council members read the baseline of a public option', async () => {
