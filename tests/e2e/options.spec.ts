@@ -58,8 +58,7 @@ test('build a harvest option: refused adjustment, fix, preview, save, run and op
   await expect(page.getByRole('heading', { level: 1, name: OPTION })).toBeVisible();
   await expect(page.getByRole('list', { name: 'Adjustments' })).toHaveText("Set the Purse seine fleet's catch of Small pelagic forage fish to 0.5 g C m-2 y-1.");
   await expect(page.getByRole('link', { name: `version 1 of ${DEMO_WEB}` })).toBeVisible();
-  // the caution stands in the footer of every page, this one included
-  await expect(page.getByRole('contentinfo').getByRole('note')).toContainText('indicative only');
+  await expect(page.getByRole('main').getByRole('note').filter({ hasText: 'indicative only' })).toBeVisible();
   await shot(page, 'option-page-saved');
 
   // not run yet, so it is edited in place
@@ -91,6 +90,23 @@ test('build a harvest option: refused adjustment, fix, preview, save, run and op
   await shares.getByRole('button', { name: 'Withdraw' }).click();
   await expect(shares).toHaveCount(0);
   await expect(page.getByText('Not shared: only analysts can see this option.')).toBeVisible();
+
+  // a run option keeps its inputs: it is duplicated to edit, and the copy can be deleted again
+  await page.getByRole('button', { name: 'Duplicate to edit' }).click();
+  await expect(page).toHaveURL(/\/options\/[0-9a-f-]+\/edit$/);
+  await expect(page.getByLabel('Name')).toHaveValue(`${OPTION} (copy)`);
+  await page.getByRole('button', { name: 'Save option' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: `${OPTION} (copy)` })).toBeVisible();
+  await expect(page.getByText('Not run yet.')).toBeVisible();
+  await page.getByRole('button', { name: 'Delete' }).click();
+  const confirm = page.getByRole('dialog', { name: 'Delete this harvest option?' });
+  await expect(confirm).toContainText('cannot be undone');
+  await shot(page, 'option-delete-confirm');
+  await confirm.getByRole('button', { name: 'Delete' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: DEMO_WEB })).toBeVisible();
+  await expect(options.getByRole('link', { name: `${OPTION} (copy)` })).toHaveCount(0);
+  await options.getByRole('link', { name: OPTION, exact: true }).click();
+  await expect(page.getByRole('heading', { level: 1, name: OPTION })).toBeVisible();
 
   const open = runs.getByRole('link', { name: 'Open result' });
   await expect(open).toHaveAttribute('href', /^\/runs\/[0-9a-f-]+$/);

@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
+import { Caution } from '../shared/caution';
 import { AdjustmentEditor } from './adjustment-editor';
 import { OptionFormStore } from './option-form-store';
 import { OptionPreviewTables } from './option-preview';
@@ -24,6 +25,7 @@ import { RESPONSE_RULES } from './option-words';
     MatInputModule,
     MatProgressBarModule,
     MatRadioModule,
+    Caution,
     AdjustmentEditor,
     OptionPreviewTables,
   ],
