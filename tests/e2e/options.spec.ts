@@ -58,9 +58,17 @@ test('build a harvest option: refused adjustment, fix, preview, save, run and op
   await expect(page.getByRole('heading', { level: 1, name: OPTION })).toBeVisible();
   await expect(page.getByRole('list', { name: 'Adjustments' })).toHaveText("Set the Purse seine fleet's catch of Small pelagic forage fish to 0.5 g C m-2 y-1.");
   await expect(page.getByRole('link', { name: `version 1 of ${DEMO_WEB}` })).toBeVisible();
-  // the caution stands in the footer of every page, this one included
-  await expect(page.getByRole('contentinfo').getByRole('note')).toContainText('indicative only');
+  await expect(page.getByRole('main').getByRole('note').filter({ hasText: 'indicative only' })).toBeVisible();
   await shot(page, 'option-page-saved');
+
+  // not run yet, so it is edited in place
+  await page.getByRole('link', { name: 'Edit', exact: true }).click();
+  await expect(page.getByRole('heading', { level: 1, name: `Edit “${OPTION}”` })).toBeVisible();
+  await expect(page.getByRole('group', { name: 'Adjustment 1' }).getByLabel(/^Catch/)).toHaveValue('0.5');
+  await page.getByLabel('Purpose').fill('A fixed quota for the purse seine, whatever the forage fish do.');
+  await page.getByRole('button', { name: 'Save option' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: OPTION })).toBeVisible();
+  await expect(page.getByText('A fixed quota for the purse seine, whatever the forage fish do.')).toBeVisible();
 
   await page.getByLabel('Draws').fill('1000');
   await page.getByRole('button', { name: 'Run', exact: true }).click();
@@ -83,8 +91,56 @@ test('build a harvest option: refused adjustment, fix, preview, save, run and op
   await expect(shares).toHaveCount(0);
   await expect(page.getByText('Not shared: only analysts can see this option.')).toBeVisible();
 
-  await runs.getByRole('link', { name: 'Open result' }).click();
+  // a run option keeps its inputs: it is duplicated to edit, and the copy can be deleted again
+  await page.getByRole('button', { name: 'Duplicate to edit' }).click();
+  await expect(page).toHaveURL(/\/options\/[0-9a-f-]+\/edit$/);
+  await expect(page.getByLabel('Name')).toHaveValue(`${OPTION} (copy)`);
+  await page.getByRole('button', { name: 'Save option' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: `${OPTION} (copy)` })).toBeVisible();
+  await expect(page.getByText('Not run yet.')).toBeVisible();
+  await page.getByRole('button', { name: 'Delete' }).click();
+  const confirm = page.getByRole('dialog', { name: 'Delete this harvest option?' });
+  await expect(confirm).toContainText('cannot be undone');
+  await shot(page, 'option-delete-confirm');
+  await confirm.getByRole('button', { name: 'Delete' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: DEMO_WEB })).toBeVisible();
+  await expect(options.getByRole('link', { name: `${OPTION} (copy)` })).toHaveCount(0);
+  await options.getByRole('link', { name: OPTION, exact: true }).click();
+  await expect(page.getByRole('heading', { level: 1, name: OPTION })).toBeVisible();
+
+  const open = runs.getByRole('link', { name: 'Open result' });
+  await expect(open).toHaveAttribute('href', /^\/runs\/[0-9a-f-]+$/);
+  await open.click();
   await expect(page).toHaveURL(/\/runs\/[0-9a-f-]+$/);
   await expect(page.getByRole('heading', { level: 1 })).toContainText(OPTION);
   await shot(page, 'run-result');
+});
+
+test('a council member sees the shared options, cannot run or share them, and compares two finished runs', async ({ page }) => {
+  await signIn(page, 'council');
+  await page.getByRole('link', { name: DEMO_WEB }).click();
+  const options = page.getByRole('list', { name: 'Harvest options' });
+  await expect(options).toContainText('Cut the forage-fish quota by 40 %');
+  await expect(page.getByRole('link', { name: 'New harvest option' })).toHaveCount(0);
+
+  await page.getByRole('link', { name: 'Cut the forage-fish quota by 40 %' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Cut the forage-fish quota by 40 %' })).toBeVisible();
+  await expect(page.getByRole('list', { name: 'Adjustments' })).toHaveText("Cut the Purse seine fleet's catch of Small pelagic forage fish by 40 %.");
+  await expect(page.getByRole('table', { name: 'Runs' }).getByRole('link', { name: 'Open result' }).first()).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Run', exact: true })).toHaveCount(0);
+  await expect(page.getByRole('heading', { name: 'Sharing' })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: /Delete|Duplicate/ })).toHaveCount(0);
+  await shot(page, 'option-page-council');
+
+  await page.getByRole('link', { name: DEMO_WEB }).first().click();
+  const compare = page.getByRole('button', { name: /^Compare/ });
+  await expect(compare).toBeDisabled();
+  await page.getByRole('checkbox', { name: 'Compare Cut the forage-fish quota by 40 %' }).check();
+  await page.getByRole('checkbox', { name: 'Compare Close the set-gillnet fleet' }).check();
+  await expect(compare).toHaveText(/Compare \(2\)/);
+  await expect(compare).toBeEnabled();
+  await shot(page, 'options-council-picked');
+  // the compare page is another feature's: this checks the address it is given
+  await compare.click();
+  await expect(page).toHaveURL(/\/compare\?runs=[0-9a-f-]+(%2C|,)[0-9a-f-]+$/);
 });

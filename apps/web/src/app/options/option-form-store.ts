@@ -41,6 +41,8 @@ interface OptionFormState {
   previewError: string | null;
   saving: boolean;
   saveError: string | null;
+  /** Changed since it was opened or saved. */
+  dirty: boolean;
 }
 
 const initial: OptionFormState = {
@@ -62,6 +64,7 @@ const initial: OptionFormState = {
   previewError: null,
   saving: false,
   saveError: null,
+  dirty: false,
 };
 
 /** The option form: the option being written, its live preview by the engine, and saving it. */
@@ -85,7 +88,7 @@ export const OptionFormStore = signalStore(
     }),
   })),
   withMethods((store, api = inject(OptionsApi)) => {
-    const edit = (change: Partial<OptionFormState>) => patchState(store, { ...change, saveError: null });
+    const edit = (change: Partial<OptionFormState>) => patchState(store, { ...change, saveError: null, dirty: true });
     return {
       async startNew(webId: string, versionId: string): Promise<void> {
         patchState(store, { ...initial, webId, versionId, loading: true, uncertainty: { ...initial.uncertainty, seed: newSeed() } });
@@ -179,7 +182,7 @@ export const OptionFormStore = signalStore(
           const optionId = store.optionId();
           if (optionId) await firstValueFrom(api.update(optionId, body));
           const id = optionId ?? (await firstValueFrom(api.create(store.webId()!, store.versionId()!, body))).id;
-          patchState(store, { saving: false });
+          patchState(store, { saving: false, dirty: false });
           return id;
         } catch (error) {
           const refused = adjustmentProblemsOf(error);

@@ -152,3 +152,38 @@ describe('OptionForm', () => {
     http.expectNone(PREVIEW_URL);
   });
 });
+
+describe('OptionForm of a stored option', () => {
+  it('offers a frozen option (one with runs) for duplication instead of editing it, and never previews it', async () => {
+    TestBed.configureTestingModule({ imports: [OptionForm], providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    const fixture = TestBed.createComponent(OptionForm);
+    fixture.componentRef.setInput('id', 'o1');
+    fixture.detectChanges();
+    const http = TestBed.inject(HttpTestingController);
+    http.expectOne('/api/options/o1').flush({
+      id: 'o1',
+      webId: 'w1',
+      versionId: 'v1',
+      name: 'Run already',
+      purpose: '',
+      response: 'bottom-up',
+      adjustments: 1,
+      frozen: true,
+      createdBy: 'Ana Lyst',
+      createdAt: '2026-03-01T10:00:00Z',
+      latestRun: null,
+      shares: [],
+      option: { name: 'Run already', response: 'bottom-up', adjustments: [{ type: 'close-fleet', fleet: 'Seine' }] },
+    });
+    await vi.waitFor(() => http.expectOne('/api/webs/w1/versions/v1').flush(version));
+    await fixture.whenStable();
+    fixture.detectChanges();
+    const root: HTMLElement = fixture.nativeElement;
+    expect(root.querySelector('[role=note]')!.textContent).toContain('Duplicate it to edit a copy');
+    expect(Array.from(root.querySelectorAll('button')).map((b) => b.textContent!.trim())).toContain('content_copy Duplicate to edit');
+    expect(root.querySelector('form')).toBeNull();
+    await pause();
+    http.expectNone(PREVIEW_URL);
+    http.verify();
+  });
+});

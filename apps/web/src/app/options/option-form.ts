@@ -7,6 +7,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
+import { Caution } from '../shared/caution';
+import type { HasUnsavedChanges } from '../webs/unsaved-changes-guard';
 import { AdjustmentEditor } from './adjustment-editor';
 import { OptionFormStore } from './option-form-store';
 import { OptionPreviewTables } from './option-preview';
@@ -24,6 +26,7 @@ import { RESPONSE_RULES } from './option-words';
     MatInputModule,
     MatProgressBarModule,
     MatRadioModule,
+    Caution,
     AdjustmentEditor,
     OptionPreviewTables,
   ],
@@ -32,7 +35,7 @@ import { RESPONSE_RULES } from './option-words';
   templateUrl: './option-form.html',
   styleUrl: './option-form.scss',
 })
-export class OptionForm {
+export class OptionForm implements HasUnsavedChanges {
   /** Route parameter `:id` when editing. */
   readonly id = input<string>();
   /** Query parameters of a new option: the web and the published version it stands on. */
@@ -62,6 +65,10 @@ export class OptionForm {
   /** What an adjustment still lacks before the engine can be asked. */
   protected missingOf(index: number): string | null {
     return this.store.draft().problems.find((p) => p.adjustment === index)?.problem ?? null;
+  }
+
+  hasUnsavedChanges(): boolean {
+    return this.store.dirty();
   }
 
   protected problemsOf(index: number): string[] {

@@ -7,6 +7,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { SessionStore } from '../auth/session-store';
+import { Caution } from '../shared/caution';
 import { ConfirmDialog, type ConfirmRequest } from './confirm-dialog';
 import { FINISHED, type RunSettings, type ShareRequest } from './options-api';
 import { OptionStore } from './option-store';
@@ -18,7 +19,7 @@ import { SharePanel } from './share-panel';
 /** One harvest option: what it does in words, its runs (the live one with its progress), sharing, duplicating and deleting. */
 @Component({
   selector: 'sw-option-page',
-  imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, RunForm, RunStatusChip, SharePanel],
+  imports: [DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, Caution, RunForm, RunStatusChip, SharePanel],
   providers: [OptionStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './option-page.html',

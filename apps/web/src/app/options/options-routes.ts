@@ -1,9 +1,10 @@
 import type { Routes } from '@angular/router';
 import { allowedTo } from '../auth/signed-in-guard';
+import { unsavedChangesGuard } from '../webs/unsaved-changes-guard';
 
 /** The harvest-options feature, loaded on first visit to /options. */
 export const optionsRoutes: Routes = [
-  { path: 'new', canActivate: [allowedTo('options.edit')], loadComponent: () => import('./option-form').then((m) => m.OptionForm), title: 'New harvest option — Seinework' },
+  { path: 'new', canActivate: [allowedTo('options.edit')], canDeactivate: [unsavedChangesGuard], loadComponent: () => import('./option-form').then((m) => m.OptionForm), title: 'New harvest option — Seinework' },
   { path: ':id', loadComponent: () => import('./option-page').then((m) => m.OptionPage), title: 'Harvest option — Seinework' },
-  { path: ':id/edit', canActivate: [allowedTo('options.edit')], loadComponent: () => import('./option-form').then((m) => m.OptionForm), title: 'Edit a harvest option — Seinework' },
+  { path: ':id/edit', canActivate: [allowedTo('options.edit')], canDeactivate: [unsavedChangesGuard], loadComponent: () => import('./option-form').then((m) => m.OptionForm), title: 'Edit a harvest option — Seinework' },
 ];

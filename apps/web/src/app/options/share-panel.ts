@@ -31,6 +31,12 @@ export class SharePanel {
   protected readonly runId = computed(() => this.pickedRun() ?? this.doneRuns()[0]?.id ?? null);
   protected readonly sharedWith = computed(() => new Set(this.shares().map((s) => s.audience)));
 
+  /** The run a share shows, in brief, when it is one of the finished runs listed. */
+  protected shownRun(share: ShareSummary): string | null {
+    const run = this.doneRuns().find((r) => r.id === share.runId);
+    return run ? `${run.draws.toLocaleString('en-GB')} draws, seed ${run.seed}` : null;
+  }
+
   protected runLabel(run: RunSummary): string {
     const when = new Date(run.finishedAt ?? run.createdAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
     return `${run.draws.toLocaleString('en-GB')} draws, cv ${run.cv}, seed ${run.seed} — ${when} UTC`;
