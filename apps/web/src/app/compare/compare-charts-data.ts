@@ -1,4 +1,4 @@
-import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import type { ComparedIndicator } from '@seinework/contracts';
 import type { PlacedWeb } from '../shared/fitness-curve-data';
 import { formatChange, formatFigure } from './indicator-names';
@@ -60,11 +60,29 @@ export const differenceChartOptions: DifferenceChart['options'] = {
     x: {
       title: { display: true, text: 'Difference from the baseline (0 = no change)' },
       ticks: { maxRotation: 0, autoSkipPadding: 12, callback: (value) => tickOfChange(Number(value)) },
-      grid: { color: (context) => (context.tick?.value === 0 ? '#1b1f20' : '#e0e4e5'), lineWidth: (context) => (context.tick?.value === 0 ? 2 : 1) },
     },
   },
   // the options are named on the axis and the bars explained beside the charts; a legend would repeat one colour per series
   plugins: { legend: { display: false } },
+};
+
+/** The line of no change, drawn at zero whether or not the axis has a tick there. */
+export const zeroLine: Plugin<'bar'> = {
+  id: 'swZeroLine',
+  afterDatasetsDraw(chart) {
+    const x = chart.scales['x'];
+    if (!x || x.min > 0 || x.max < 0) return;
+    const at = x.getPixelForValue(0);
+    const { ctx, chartArea } = chart;
+    ctx.save();
+    ctx.strokeStyle = '#1b1f20';
+    ctx.lineWidth = 2;
+    ctx.beginPath();
+    ctx.moveTo(at, chartArea.top);
+    ctx.lineTo(at, chartArea.bottom);
+    ctx.stroke();
+    ctx.restore();
+  },
 };
 
 /** A tick of a difference axis: numerical noise around zero reads as 0. */
