@@ -78,7 +78,7 @@ test('a council member compares the shared options and records a preference', as
   await baselineHeader.click();
   await baselineHeader.click();
   await expect(baselineHeader).toHaveAttribute('aria-sort', 'descending');
-  await expect(rows.first().getByRole('cell').first()).toHaveText('Development capacity');
+  await expect(rows.first().getByRole('cell').first()).toHaveText(`Development capacity ${demo.unit}·bits`);
   // the row without a baseline (Fishing-in-Balance exists only as a change) stays last
   await expect(rows.last().getByRole('cell').first()).toHaveText('Fishing-in-Balance');
 

@@ -34,6 +34,16 @@ describe('IndicatorTable', () => {
     expect(cells[3]).toContain('−0.56 to −0.4');
   });
 
+  it("gives each indicator its unit once the web's flow unit is known", async () => {
+    const { fixture, root } = await open();
+    const unitOfRow = (name: string) => Array.from(root.querySelectorAll('tbody tr')).find((tr) => tr.textContent!.includes(name))!.querySelector('.unit')?.textContent;
+    expect(unitOfRow('Total catch')).toBeUndefined();
+    fixture.componentRef.setInput('flowUnit', 'g C m-2 y-1');
+    fixture.detectChanges();
+    expect(unitOfRow('Total catch')).toBe('g C m-2 y-1');
+    expect(unitOfRow('Relative ascendency')).toBeUndefined();
+  });
+
   it('marks with an icon and words exactly the changes whose band excludes zero, and explains the mark', async () => {
     const { root } = await open();
     const marked = Array.from(root.querySelectorAll('tbody td'))
