@@ -1,7 +1,10 @@
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import type { ComparedIndicator } from '@seinework/contracts';
 import type { PlacedWeb } from '../shared/fitness-curve-data';
-import { formatChange, formatFigure } from './indicator-names';
+import { formatChange } from './indicator-names';
+
+// the close-up spans a few ten-thousandths of a: its ticks need more figures than the tables
+const closeUpTick = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 6 });
 
 /**
  * The comparison's charts: each key indicator's difference per option with its 5–95 % band, and
@@ -129,7 +132,7 @@ export function fitnessCloseUpOptions(webs: readonly PlacedWeb[]): ChartConfigur
     maintainAspectRatio: false,
     animation: false,
     scales: {
-      x: { min: low, max: high, ticks: { includeBounds: false, callback: (value) => formatFigure(Number(value)) }, title: { display: true, text: 'Relative ascendency a (constraint →)' } },
+      x: { min: low, max: high, ticks: { includeBounds: false, callback: (value) => closeUpTick.format(Number(value)) }, title: { display: true, text: 'Relative ascendency a (constraint →)' } },
       y: { min: yLow, max: yHigh, ticks: { includeBounds: false }, title: { display: true, text: 'Fitness F' } },
     },
     plugins: { legend: { position: 'bottom', labels: { usePointStyle: true } } },
