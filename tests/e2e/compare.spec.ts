@@ -113,6 +113,11 @@ test('a council member compares the shared options and records a preference', as
   await page.reload();
   await expect(page.getByRole('list', { name: "The council's preferences" })).toContainText(reason);
 
+  // back to the picker on the same baseline, with the compared options still ticked
+  await page.getByRole('button', { name: 'Change the options' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Compare options' })).toBeVisible();
+  for (const name of SHARED) await expect(page.getByRole('checkbox', { name })).toBeChecked();
+
   expect(problems).toEqual([]);
 });
 
