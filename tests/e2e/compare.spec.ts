@@ -117,6 +117,14 @@ test('a council member compares the shared options and records a preference', as
   await page.getByRole('button', { name: 'Change the options' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Compare options' })).toBeVisible();
   for (const name of SHARED) await expect(page.getByRole('checkbox', { name })).toBeChecked();
+  await shot(page, 'compare-picker-again');
+
+  // at twice the zoom (half the width) the table scrolls in its own frame and the page does not
+  await page.goBack();
+  await page.setViewportSize({ width: 640, height: 800 });
+  await expect(table).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(640);
+  await shot(page, 'compare-comparison-narrow');
 
   expect(problems).toEqual([]);
 });

@@ -73,7 +73,8 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
     </div>
   `,
   styles: `
-    .table-scroll { overflow-x: auto; }
+    /* positioned, so that the visually hidden header texts scroll with the table instead of widening the page */
+    .table-scroll { position: relative; overflow-x: auto; }
     table { width: 100%; }
     .legend { max-width: 80ch; }
     .mark { display: inline-flex; align-items: center; gap: 2px; font-weight: 500; color: var(--mat-sys-tertiary); white-space: nowrap; font-size: 0.8125rem; }
