@@ -78,7 +78,7 @@ test('a council member compares the shared options and records a preference', as
   await baselineHeader.click();
   await baselineHeader.click();
   await expect(baselineHeader).toHaveAttribute('aria-sort', 'descending');
-  await expect(rows.first().getByRole('cell').first()).toHaveText('Development capacity');
+  await expect(rows.first().getByRole('cell').first()).toHaveText(`Development capacity ${demo.unit}·bits`);
   // the row without a baseline (Fishing-in-Balance exists only as a change) stays last
   await expect(rows.last().getByRole('cell').first()).toHaveText('Fishing-in-Balance');
 
@@ -112,6 +112,19 @@ test('a council member compares the shared options and records a preference', as
   // the URL is the comparison: opened afresh it shows the same runs and the recorded preference
   await page.reload();
   await expect(page.getByRole('list', { name: "The council's preferences" })).toContainText(reason);
+
+  // back to the picker on the same baseline, with the compared options still ticked
+  await page.getByRole('button', { name: 'Change the options' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Compare options' })).toBeVisible();
+  for (const name of SHARED) await expect(page.getByRole('checkbox', { name })).toBeChecked();
+  await shot(page, 'compare-picker-again');
+
+  // at twice the zoom (half the width) the table scrolls in its own frame and the page does not
+  await page.goBack();
+  await page.setViewportSize({ width: 640, height: 800 });
+  await expect(table).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(640);
+  await shot(page, 'compare-comparison-narrow');
 
   expect(problems).toEqual([]);
 });

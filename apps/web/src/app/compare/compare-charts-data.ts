@@ -1,7 +1,10 @@
-import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import type { ComparedIndicator } from '@seinework/contracts';
 import type { PlacedWeb } from '../shared/fitness-curve-data';
-import { formatChange, formatFigure } from './indicator-names';
+import { formatChange } from './indicator-names';
+
+// the close-up spans a few ten-thousandths of a: its ticks need more figures than the tables
+const closeUpTick = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 6 });
 
 /**
  * The comparison's charts: each key indicator's difference per option with its 5–95 % band, and
@@ -60,11 +63,29 @@ export const differenceChartOptions: DifferenceChart['options'] = {
     x: {
       title: { display: true, text: 'Difference from the baseline (0 = no change)' },
       ticks: { maxRotation: 0, autoSkipPadding: 12, callback: (value) => tickOfChange(Number(value)) },
-      grid: { color: (context) => (context.tick?.value === 0 ? '#1b1f20' : '#e0e4e5'), lineWidth: (context) => (context.tick?.value === 0 ? 2 : 1) },
     },
   },
   // the options are named on the axis and the bars explained beside the charts; a legend would repeat one colour per series
   plugins: { legend: { display: false } },
+};
+
+/** The line of no change, drawn at zero whether or not the axis has a tick there. */
+export const zeroLine: Plugin<'bar'> = {
+  id: 'swZeroLine',
+  afterDatasetsDraw(chart) {
+    const x = chart.scales['x'];
+    if (!x || x.min > 0 || x.max < 0) return;
+    const at = x.getPixelForValue(0);
+    const { ctx, chartArea } = chart;
+    ctx.save();
+    ctx.strokeStyle = '#1b1f20';
+    ctx.lineWidth = 2;
+    ctx.beginPath();
+    ctx.moveTo(at, chartArea.top);
+    ctx.lineTo(at, chartArea.bottom);
+    ctx.stroke();
+    ctx.restore();
+  },
 };
 
 /** A tick of a difference axis: numerical noise around zero reads as 0. */
@@ -111,7 +132,7 @@ export function fitnessCloseUpOptions(webs: readonly PlacedWeb[]): ChartConfigur
     maintainAspectRatio: false,
     animation: false,
     scales: {
-      x: { min: low, max: high, ticks: { includeBounds: false, callback: (value) => formatFigure(Number(value)) }, title: { display: true, text: 'Relative ascendency a (constraint →)' } },
+      x: { min: low, max: high, ticks: { includeBounds: false, callback: (value) => closeUpTick.format(Number(value)) }, title: { display: true, text: 'Relative ascendency a (constraint →)' } },
       y: { min: yLow, max: yHigh, ticks: { includeBounds: false }, title: { display: true, text: 'Fitness F' } },
     },
     plugins: { legend: { position: 'bottom', labels: { usePointStyle: true } } },

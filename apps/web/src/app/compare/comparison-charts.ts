@@ -3,7 +3,7 @@ import { BaseChartDirective } from 'ng2-charts';
 import type { Comparison } from '@seinework/contracts';
 import { FitnessCurve } from '../shared/fitness-curve';
 import type { PlacedWeb } from '../shared/fitness-curve-data';
-import { differenceChartData, differenceChartOptions, fitnessCloseUpData, fitnessCloseUpOptions } from './compare-charts-data';
+import { differenceChartData, differenceChartOptions, fitnessCloseUpData, fitnessCloseUpOptions, zeroLine } from './compare-charts-data';
 import type { ComparedRun } from './compared-run';
 import { formatChange, formatFigure, INDICATOR_NAMES, KEY_INDICATORS } from './indicator-names';
 
@@ -23,7 +23,7 @@ import { formatChange, formatFigure, INDICATOR_NAMES, KEY_INDICATORS } from './i
         <figure>
           <figcaption>{{ chart.name }}</figcaption>
           <div class="chart" [style.height.px]="80 + runs().length * 36">
-            <canvas baseChart [type]="'bar'" [data]="chart.data" [options]="chartOptions" role="img" [attr.aria-label]="chart.description"></canvas>
+            <canvas baseChart [type]="'bar'" [data]="chart.data" [options]="chartOptions" [plugins]="chartPlugins" role="img" [attr.aria-label]="chart.description"></canvas>
           </div>
           <details>
             <summary>The figures of this chart</summary>
@@ -89,6 +89,7 @@ export class ComparisonCharts {
   readonly runs = input.required<readonly ComparedRun[]>();
 
   protected readonly chartOptions = differenceChartOptions;
+  protected readonly chartPlugins = [zeroLine];
 
   protected readonly differenceCharts = computed(() =>
     KEY_INDICATORS.map((key) => this.comparison().indicators.find((i) => i.key === key))

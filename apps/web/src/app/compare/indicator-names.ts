@@ -41,3 +41,15 @@ export function formatChange(value: number | null): string {
   if (value === null) return '—';
   return change.format(value).replace('-', '−');
 }
+
+const IN_FLOW_UNIT: readonly IndicatorKey[] = ['tst', 'totalSystemThroughflow', 'totalCatch', 'primaryProductionRequired'];
+const IN_FLOW_BITS: readonly IndicatorKey[] = ['developmentCapacity', 'ascendency', 'overhead'];
+const IN_BITS: readonly IndicatorKey[] = ['averageMutualInformation', 'flowDiversity'];
+
+/** The unit an indicator is shown in (METHODS.md: information indices in bits, times the flow unit for A, C, Φ); '' for ratios. */
+export function unitOf(key: IndicatorKey, flowUnit: string): string {
+  if (IN_FLOW_UNIT.includes(key)) return flowUnit;
+  if (IN_FLOW_BITS.includes(key)) return `${flowUnit}·bits`;
+  if (IN_BITS.includes(key)) return 'bits';
+  return '';
+}

@@ -4,7 +4,7 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import type { ComparedIndicator } from '@seinework/contracts';
 import type { ComparedRun } from './compared-run';
-import { formatChange, formatFigure, INDICATOR_NAMES } from './indicator-names';
+import { formatChange, formatFigure, INDICATOR_NAMES, unitOf } from './indicator-names';
 import { sortIndicators, type SortDirection } from './indicator-rows';
 
 /** Every indicator side by side: the baseline, then each option's value after and its difference with the 5–95 % band. */
@@ -31,7 +31,12 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
 
         <ng-container matColumnDef="indicator">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Indicator</th>
-          <td mat-cell *matCellDef="let row" class="name">{{ name(row) }}</td>
+          <td mat-cell *matCellDef="let row" class="name">
+            {{ name(row) }}
+            @if (unit(row); as unit) {
+              <span class="unit">{{ unit }}</span>
+            }
+          </td>
         </ng-container>
         <ng-container matColumnDef="baseline">
           <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" class="number">Baseline</th>
@@ -68,7 +73,8 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
     </div>
   `,
   styles: `
-    .table-scroll { overflow-x: auto; }
+    /* positioned, so that the visually hidden header texts scroll with the table instead of widening the page */
+    .table-scroll { position: relative; overflow-x: auto; }
     table { width: 100%; }
     .legend { max-width: 80ch; }
     .mark { display: inline-flex; align-items: center; gap: 2px; font-weight: 500; color: var(--mat-sys-tertiary); white-space: nowrap; font-size: 0.8125rem; }
@@ -76,6 +82,7 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
     .number { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
     th.number { justify-content: flex-end; }
     .name { min-width: 10em; white-space: normal; }
+    .unit { display: block; font-size: 0.75rem; color: var(--mat-sys-on-surface-variant); }
     th, td { padding: 6px 8px; }
     th:first-child, td:first-child { padding-left: 0; }
     .change { vertical-align: top; padding-top: 8px; padding-bottom: 8px; }
@@ -91,6 +98,8 @@ import { sortIndicators, type SortDirection } from './indicator-rows';
 export class IndicatorTable {
   readonly indicators = input.required<readonly ComparedIndicator[]>();
   readonly runs = input.required<readonly ComparedRun[]>();
+  /** The web's flow unit, for the indicators measured in it; none shown while it is not known. */
+  readonly flowUnit = input<string | null>(null);
 
   private readonly sort = signal<{ column: string; direction: SortDirection }>({ column: '', direction: '' });
 
@@ -104,6 +113,11 @@ export class IndicatorTable {
 
   protected valueOf(row: ComparedIndicator, runId: string): ComparedIndicator['values'][number] | undefined {
     return row.values.find((v) => v.runId === runId);
+  }
+
+  protected unit(row: ComparedIndicator): string {
+    const flowUnit = this.flowUnit();
+    return flowUnit ? unitOf(row.key, flowUnit) : '';
   }
 
   protected name(row: ComparedIndicator): string {

@@ -1,6 +1,6 @@
-import { ChangeDetectionStrategy, Component, computed, effect, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, input, output, signal, untracked, viewChild } from '@angular/core';
 import { DatePipe } from '@angular/common';
-import { FormsModule } from '@angular/forms';
+import { FormsModule, NgForm } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -98,11 +98,18 @@ export class PreferencePanel {
   protected readonly maxReason = MAX_REASON;
   protected readonly optionId = signal<string | null>(null);
   protected readonly reason = signal('');
+  private readonly form = viewChild(NgForm);
   private readonly letters = computed(() => new Map(this.runs().map((run) => [run.optionId, run.letter])));
 
   constructor() {
+    // once stored, the form starts afresh (and stops showing what was missing at the first try)
     effect(() => {
-      if (this.recorded()) this.reason.set('');
+      if (!this.recorded()) return;
+      untracked(() => {
+        this.form()?.resetForm();
+        this.optionId.set(null);
+        this.reason.set('');
+      });
     });
   }
 

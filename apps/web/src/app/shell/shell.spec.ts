@@ -33,11 +33,15 @@ describe('Shell', () => {
   }
 
   it('shows the admin link to an admin only', async () => {
-    expect((await render(person('admin'))).links).toEqual(['Webs', 'Admin']);
+    expect((await render(person('admin'))).links).toEqual(['Webs', 'Compare options', 'Admin']);
   });
 
   it('shows an analyst the webs and not the admin pages', async () => {
-    expect((await render(person('analyst'))).links).toEqual(['Webs']);
+    expect((await render(person('analyst'))).links).toEqual(['Webs', 'Compare options']);
+  });
+
+  it('offers the comparison of options to the roles that read them', async () => {
+    expect((await render(person('council'))).links).toEqual(['Webs', 'Compare options']);
   });
 
   it('shows a stakeholder no list of webs it would be refused', async () => {
