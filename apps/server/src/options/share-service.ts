@@ -13,8 +13,8 @@ import { isUniqueViolation } from './unique-violation';
 /**
  * Sharing an option for council review or public comment, and withdrawing the share. A share shows
  * one finished run (readers compare results, not inputs); withdrawing keeps the row, so the audit log
- * and the shares say who could see what, when. A share for public comment needs its closing date;
- * after it the discussion is read-only. Once the share is stored its audience is told by e-mail
+ * and the shares say who could see what, when. A share for public comment may have a closing date
+ * (optional); after it the discussion is read-only. Once the share is stored its audience is told by e-mail
  * (notifications/, queued after the commit).
  */
 
@@ -32,7 +32,6 @@ export class ShareService {
 
   async share(user: CurrentUser, optionId: string, body: ShareBody): Promise<{ id: string }> {
     const closesAt = body.closesAt ? new Date(body.closesAt) : null;
-    if (body.audience === 'public' && !closesAt) throw new RequestError(422, 'A share for public comment needs its closing date: give closesAt', ['closesAt: required for public comment']);
     if (closesAt && closesAt.getTime() <= this.now().getTime()) throw new RequestError(422, 'closesAt must be in the future', ['closesAt: must be later than now']);
     const option = await this.optionService.visibleRow(user, optionId);
     const runId = await this.shownRun(optionId, body.runId);
