@@ -17,12 +17,13 @@ function comment(id: string, parentId: string | null = null, extra: Partial<Comm
     createdAt: '2026-12-01T10:00:00Z',
     editedAt: null,
     editable: false,
+    audience: 'public',
     ...extra,
   };
 }
 
 function page(items: CommentItem[], total = items.length, pageNumber = 1): CommentPage {
-  return { items, total, page: pageNumber, pageSize: 50, discussion: { open: true, closedReason: null, closesAt: null, following: false } };
+  return { items, total, page: pageNumber, pageSize: 50, discussion: { audience: 'public', open: true, closedReason: null, closesAt: null, following: false } };
 }
 
 describe('threads', () => {
