@@ -131,12 +131,10 @@ test('an admin invites someone, who follows the e-mailed link, sets name and pas
   await expect(page.getByText('Morwenna Tidewell can no longer sign in.')).toBeVisible();
   await expect(page.getByRole('switch', { name: 'Deactivated: Morwenna Tidewell' })).not.toBeChecked();
   await shot(page, 'admin-users-deactivated');
-  // the page still thinks they are signed in; opening the list of webs again asks the server, which says the session is over
+  // the page still thinks they are signed in; opening their account asks the server (their e-mail settings), which says the session is over
   await invited.getByRole('button', { name: /^Account of / }).click();
   await invited.getByRole('menuitem', { name: 'Account and password' }).click();
-  await expect(invited).toHaveURL(/\/account$/);
-  await invited.getByRole('banner').getByRole('link', { name: 'Webs' }).click();
-  await expect(invited).toHaveURL(/\/sign-in\?returnTo=%2Fwebs/);
+  await expect(invited).toHaveURL(/\/sign-in\?returnTo=%2Faccount/);
   await expect(invited.getByText('Your session has ended.')).toBeVisible();
   await shot(invited, 'sign-in-after-session-ended');
   await theirs.close();
