@@ -10,3 +10,4 @@ export * from './duplicate-keys';
 export * from './options-api';
 export * from './discussion-api';
 export * from './brief-api';
+export * from './indicator-names';

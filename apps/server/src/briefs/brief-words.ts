@@ -1,4 +1,4 @@
-import { formatNumber, type Adjustment, type ResponseRule } from '@seinework/contracts';
+import { formatNumber, INDICATOR_NAMES, type Adjustment, type ResponseRule } from '@seinework/contracts';
 
 export { formatDate, formatNumber, formatSigned } from '@seinework/contracts';
 
@@ -8,25 +8,7 @@ export const CAUTION =
   'Steady-state network results are indicative, carry data uncertainty, and do not replace stock assessments, ' +
   "the advice of the council's scientific body, or the law that governs the fishery.";
 
-const LABELS: Record<string, string> = {
-  tst: 'Total system throughput',
-  totalSystemThroughflow: 'Total system throughflow',
-  developmentCapacity: 'Development capacity',
-  ascendency: 'Ascendency',
-  overhead: 'Overhead',
-  averageMutualInformation: 'Average mutual information',
-  flowDiversity: 'Flow diversity',
-  relativeAscendency: 'Relative ascendency',
-  robustness: 'Fitness (robustness)',
-  effectiveRoles: 'Effective number of roles',
-  effectiveConnectance: 'Effective connectance',
-  finnCyclingIndex: 'Finn cycling index',
-  totalCatch: 'Total catch',
-  meanTrophicLevelOfCatch: 'Mean trophic level of the catch',
-  primaryProductionRequired: 'Primary production required',
-  primaryProductionRequiredShare: 'Share of primary production required',
-  fishingInBalance: 'Fishing-in-Balance index',
-};
+const LABELS: Readonly<Record<string, string>> = INDICATOR_NAMES;
 
 export function indicatorLabel(key: string): string {
   return Object.hasOwn(LABELS, key) ? LABELS[key]! : key;

@@ -1,27 +1,7 @@
-import type { ComparedIndicator } from '@seinework/contracts';
+import { INDICATOR_NAMES, type IndicatorKey } from '@seinework/contracts';
 
-export type IndicatorKey = ComparedIndicator['key'];
+export { INDICATOR_NAMES, type IndicatorKey };
 
-/** Plain names of the compared indicators (published method names keep their usual names). */
-export const INDICATOR_NAMES: Record<IndicatorKey, string> = {
-  tst: 'Total system throughput',
-  totalSystemThroughflow: 'Total system throughflow',
-  developmentCapacity: 'Development capacity',
-  ascendency: 'Ascendency',
-  overhead: 'Overhead',
-  averageMutualInformation: 'Average mutual information',
-  flowDiversity: 'Flow diversity',
-  relativeAscendency: 'Relative ascendency',
-  robustness: 'Fitness (robustness)',
-  effectiveRoles: 'Effective number of roles',
-  effectiveConnectance: 'Effective connectance',
-  finnCyclingIndex: 'Finn cycling index',
-  totalCatch: 'Total catch',
-  meanTrophicLevelOfCatch: 'Mean trophic level of the catch',
-  primaryProductionRequired: 'Primary production required',
-  primaryProductionRequiredShare: 'Share of primary production required',
-  fishingInBalance: 'Fishing-in-Balance',
-};
 
 /** The indicators charted side by side: the ones a council member reads first. */
 export const KEY_INDICATORS: readonly IndicatorKey[] = ['relativeAscendency', 'finnCyclingIndex', 'totalCatch', 'meanTrophicLevelOfCatch', 'primaryProductionRequiredShare'];
