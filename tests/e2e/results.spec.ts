@@ -96,8 +96,14 @@ test('a council member reads the result of a shared option: indicators with band
   const dependence = page.getByRole('table', { name: 'Largest changes of indirect diet dependence' });
   await expect(dependence.locator('tbody tr')).toHaveCount(25);
   await dependence.getByRole('button', { name: 'Food of' }).click();
-  const firstFoodOf = await dependence.locator('tbody tr td:nth-child(2)').allTextContents();
-  expect(firstFoodOf).toEqual([...firstFoodOf].sort((a, b) => a.localeCompare(b, 'en-GB')));
+  // the click re-sorts on the next change detection: poll until the column reads in order
+  const foodOf = dependence.locator('tbody tr td:nth-child(2)');
+  await expect
+    .poll(async () => {
+      const names = (await foodOf.allTextContents()).map((name) => name.trim());
+      return names.join('|') === [...names].sort((a, b) => a.localeCompare(b, 'en-GB')).join('|');
+    })
+    .toBe(true);
   await expect(page.getByRole('table', { name: /Change of indirect diet dependence/ })).toBeVisible();
 
   // fleet effects and the fleet table
