@@ -37,6 +37,11 @@ export class OptionPage {
 
   protected readonly adjustments = computed(() => (this.store.detail()?.option.adjustments ?? []).map((a) => adjustmentInWords(a, this.store.web())));
   protected readonly rule = computed(() => RESPONSE_RULES.find((r) => r.rule === this.store.detail()?.response));
+  /** The run a brief is printed for: the one shared with the council or the public, else the latest finished one. */
+  protected readonly briefRun = computed(() => {
+    const shared = this.store.detail()?.shares.find((s) => s.runId)?.runId;
+    return shared ?? this.store.doneRuns()[0]?.id ?? null;
+  });
   protected readonly liveUnfinished = computed(() => {
     const run = this.store.liveRun();
     return run && !FINISHED.has(run.status) ? run : null;

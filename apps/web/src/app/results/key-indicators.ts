@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { CsvButton } from '../shared/csv-button';
+import { CommentBadge } from './comment-badge';
 import { DifferenceBand } from './difference-band';
 import { formatValue } from './format';
 import { HEADLINE_KEYS } from './indicator-labels';
@@ -10,14 +11,14 @@ import { indicatorTable, type IndicatorRow } from './result-tables';
 /** Before, after and the difference of each key indicator, with its 5–95 % band and the robust mark. */
 @Component({
   selector: 'sw-key-indicators',
-  imports: [MatCardModule, MatIconModule, CsvButton, DifferenceBand],
+  imports: [MatCardModule, MatIconModule, CsvButton, CommentBadge, DifferenceBand],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <section class="cards" aria-label="Key indicators">
       @for (row of headline(); track row.key) {
         <mat-card appearance="outlined" [id]="'indicator-card-' + row.key" class="card" [class.robust-card]="row.robust">
           <mat-card-header>
-            <mat-card-title>{{ row.name }}</mat-card-title>
+            <mat-card-title>{{ row.name }}<sw-comment-badge [anchor]="{ kind: 'indicator', key: row.key }" /></mat-card-title>
             <mat-card-subtitle>{{ row.meaning }}</mat-card-subtitle>
           </mat-card-header>
           <mat-card-content>
@@ -72,7 +73,7 @@ import { indicatorTable, type IndicatorRow } from './result-tables';
         <tbody>
           @for (row of rows(); track row.key) {
             <tr [id]="'indicator-' + row.key">
-              <th scope="row" [title]="row.meaning">{{ row.name }}</th>
+              <th scope="row" [title]="row.meaning">{{ row.name }}<sw-comment-badge [anchor]="{ kind: 'indicator', key: row.key }" /></th>
               <td>{{ show(row, row.baseline) }}</td>
               <td>{{ show(row, row.option) }}</td>
               <td>{{ show(row, row.difference, true) }}</td>

@@ -1,12 +1,13 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { CsvButton } from '../shared/csv-button';
+import { CommentBadge } from './comment-badge';
 import { formatValue } from './format';
 import { positionTable, type PositionRow } from './result-tables';
 
 /** Each compartment's trophic position before and after, highest first. Rows carry `compartment-<id>` for comment anchors. */
 @Component({
   selector: 'sw-positions-table',
-  imports: [CsvButton],
+  imports: [CsvButton, CommentBadge],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <div class="table-head">
@@ -22,7 +23,7 @@ import { positionTable, type PositionRow } from './result-tables';
         <tbody>
           @for (r of rows(); track r.id) {
             <tr [id]="'compartment-' + r.id">
-              <th scope="row">{{ r.name }}</th>
+              <th scope="row">{{ r.name }}<sw-comment-badge [anchor]="{ kind: 'compartment', key: r.id }" /></th>
               <td>{{ n(r.before) }}</td>
               <td>{{ n(r.after) }}</td>
               <td>{{ n(r.change, true) }}</td>

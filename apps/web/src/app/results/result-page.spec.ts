@@ -3,7 +3,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { provideRouter } from '@angular/router';
 import { provideCharts, withDefaultRegisterables } from 'ng2-charts';
-import type { RunDetail } from '@seinework/contracts';
+import type { CommentItem, RunDetail } from '@seinework/contracts';
 import { fixtureDocument, fixtureRun } from './result-fixture';
 import { ResultPage } from './result-page';
 
@@ -22,7 +22,7 @@ describe('ResultPage', () => {
     const http = TestBed.inject(HttpTestingController);
     http.expectOne((r) => r.url === `/api/runs/${run.id}`).flush(run);
     await fixture.whenStable();
-    http.expectOne('/api/options/option-1').flush({ id: 'option-1', purpose: 'Let the fish grow' });
+    http.expectOne('/api/options/option-1').flush({ id: 'option-1', purpose: 'Let the fish grow', shares: [] });
     http.expectOne('/api/webs/web-1/versions/version-1').flush({ id: 'version-1', number: 2, web: { ...fixtureDocument().web, name: 'Test bay' } });
     await fixture.whenStable();
     fixture.detectChanges();
@@ -61,6 +61,56 @@ describe('ResultPage', () => {
     expect(sensitivity).toContain('Fish');
     expect(sensitivity).toContain('−1 × 10⁻⁷');
     expect(sensitivity).toContain('toward the peak');
+  });
+
+  it('shows the comments that point at an indicator or a compartment beside their rows, and groups them below', async () => {
+    const { fixture, http, root } = await open(fixtureRun('done', fixtureDocument()));
+    const comment = (id: string, anchor: CommentItem['anchor'], text: string | null, hidden = false): CommentItem => ({
+      id, optionId: 'option-1', audience: 'public', parentId: null, author: { id: 'u-1', name: 'Tamsin (demo)', role: 'stakeholder' },
+      text, anchor, hidden, hiddenReason: null, createdAt: '2026-11-20T10:00:00.000Z', editedAt: null, editable: false,
+    });
+    const items = [
+      comment('c-1', { kind: 'indicator', key: 'totalCatch' }, 'The catch <b>falls</b> too far'),
+      comment('c-2', { kind: 'indicator', key: 'totalCatch' }, 'I agree'),
+      comment('c-3', { kind: 'compartment', key: 'fish' }, 'What about the fish?'),
+      comment('c-4', { kind: 'indicator', key: 'tst' }, null, true),
+      comment('c-5', null, 'On the option as a whole'),
+    ];
+    http.expectOne((r) => r.url === '/api/options/option-1/comments').flush({
+      items, total: items.length, page: 1, pageSize: 50,
+      discussion: { audience: 'public', open: true, closedReason: null, closesAt: null, following: false },
+    });
+    await fixture.whenStable();
+    fixture.detectChanges();
+
+    expect(root.querySelector('#indicator-totalCatch sw-comment-badge button')!.getAttribute('aria-label')).toBe('2 comments on this: show them');
+    expect(root.querySelector('#indicator-card-totalCatch sw-comment-badge button')!.textContent).toContain('2');
+    expect(root.querySelector('#compartment-fish sw-comment-badge button')!.getAttribute('aria-label')).toBe('1 comment on this: show them');
+    // a comment whose text the reader may not see is not counted
+    expect(root.querySelector('#indicator-tst sw-comment-badge button')).toBeNull();
+
+    const section = root.querySelector('#comments')!;
+    expect(section.querySelector('h2')!.textContent).toBe('Comments on this result');
+    expect(section.textContent).toContain('3 comments of this option');
+    expect(section.textContent).toContain('One more comment is about the option as a whole');
+    const catchGroup = section.querySelector('#comments-indicator-totalCatch')!;
+    expect(catchGroup.querySelector('h3')!.textContent).toBe('About Total catch');
+    // shown as the characters typed, never as markup
+    expect(catchGroup.textContent).toContain('The catch <b>falls</b> too far');
+    expect(catchGroup.querySelector('b')).toBeNull();
+    expect(section.querySelector('#comments-compartment-fish h3')!.textContent).toBe('About compartment Fish');
+    expect(root.querySelector('a[href="/discussions/option-1"]')).not.toBeNull();
+    expect(Array.from(root.querySelectorAll('.toc button')).map((b) => b.textContent!.trim())).toContain('Comments');
+  });
+
+  it('shows no comments section when the option has no discussion for the reader', async () => {
+    const { fixture, http, root } = await open(fixtureRun('done', fixtureDocument()));
+    http.expectOne((r) => r.url === '/api/options/option-1/comments').flush({ error: 'Not shared with you' }, { status: 403, statusText: 'Forbidden' });
+    await fixture.whenStable();
+    fixture.detectChanges();
+    expect(root.querySelector('#comments')).toBeNull();
+    expect(root.querySelector('[role=alert]')).toBeNull();
+    expect(root.querySelector('a[href="/discussions/option-1"]')).toBeNull();
   });
 
   it('tells what a run that is not done is doing, without result sections', async () => {

@@ -1,10 +1,12 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, afterRenderEffect, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { Title } from '@angular/platform-browser';
-import { RouterLink } from '@angular/router';
+import { ActivatedRoute, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { SessionStore } from '../auth/session-store';
 import { Caution } from '../shared/caution';
 import { CsvButton } from '../shared/csv-button';
 import { downloadXlsx } from '../shared/table-export';
@@ -16,6 +18,8 @@ import { KeyIndicators } from './key-indicators';
 import { LadderChart } from './ladder-chart';
 import { PositionsTable } from './positions-table';
 import { RecyclingSection } from './recycling-section';
+import { ResultComments, markPointedAt } from './result-comments';
+import { ResultCommentsStore } from './result-comments-store';
 import { ResultFitnessCurve } from './result-fitness-curve';
 import { allTables, describeAdjustment, fitnessTable } from './result-tables';
 import { ResultsStore } from './results-store';
@@ -51,9 +55,10 @@ const SECTIONS = [
     LadderChart,
     PositionsTable,
     RecyclingSection,
+    ResultComments,
     SensitivityTable,
   ],
-  providers: [ResultsStore],
+  providers: [ResultsStore, ResultCommentsStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './result-page.html',
   styleUrl: './result-page.scss',
@@ -63,8 +68,13 @@ export class ResultPage {
   readonly id = input.required<string>();
 
   protected readonly store = inject(ResultsStore);
+  protected readonly comments = inject(ResultCommentsStore);
+  protected readonly session = inject(SessionStore);
+  /** `#indicator-tst` or `#compartment-cod` from a comment's link: the row to bring into view once the result is drawn. */
+  private readonly fragment = toSignal(inject(ActivatedRoute).fragment, { initialValue: null });
+  private pointedAt: string | null = null;
   private readonly title = inject(Title);
-  protected readonly sections = SECTIONS;
+  protected readonly sections = computed(() => (this.comments.available() ? [...SECTIONS, { id: 'comments', title: 'Comments' }] : SECTIONS));
   protected readonly exporting = signal(false);
   protected readonly exportError = signal<string | null>(null);
 
@@ -81,10 +91,26 @@ export class ResultPage {
       untracked(() => this.store.load(id));
     });
     effect(() => {
+      const optionId = this.store.run()?.optionId;
+      if (optionId) untracked(() => this.comments.load(optionId));
+    });
+    afterRenderEffect(() => {
+      const target = this.fragment();
+      if (!target || !this.store.doc() || target === this.pointedAt) return;
+      const element = document.getElementById(target);
+      if (!element) return;
+      this.pointedAt = target;
+      element.scrollIntoView({ block: 'center' });
+      markPointedAt(element);
+    });
+    effect(() => {
       const name = this.store.optionName();
       if (name) this.title.setTitle(`${name} — result — Seinework`);
     });
   }
+
+  /** The run the option is shared with, whose discussion the comments belong to. */
+  protected readonly sharedRunId = computed(() => this.store.option()?.shares.find((s) => s.runId)?.runId ?? null);
 
   protected jump(id: string): void {
     document.getElementById(id)?.scrollIntoView({ behavior: 'smooth', block: 'start' });

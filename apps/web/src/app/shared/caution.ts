@@ -1,5 +1,11 @@
 import { ChangeDetectionStrategy, Component } from '@angular/core';
 
+/**
+ * Route data of the pages that show the caution themselves, beside their results: the shell then
+ * leaves it out of its footer, so that it is said once, where the numbers are.
+ */
+export const PAGE_CARRIES_CAUTION = { pageCarriesCaution: true } as const;
+
 /** The caution every result page and brief carries (PRODUCT.md, "Cautions the product shows"). */
 @Component({
   selector: 'sw-caution',

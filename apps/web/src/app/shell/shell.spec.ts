@@ -5,6 +5,7 @@ import { provideRouter, Router } from '@angular/router';
 import { Component } from '@angular/core';
 import type { CurrentUser, Role } from '@seinework/contracts';
 import { SessionStore } from '../auth/session-store';
+import { PAGE_CARRIES_CAUTION } from '../shared/caution';
 import { Shell } from './shell';
 
 @Component({ template: 'page' })
@@ -18,7 +19,14 @@ describe('Shell', () => {
   beforeEach(() => {
     TestBed.configureTestingModule({
       imports: [Shell],
-      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([{ path: '**', component: Page }])],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([
+          { path: 'runs/:id', component: Page, data: PAGE_CARRIES_CAUTION },
+          { path: '**', component: Page },
+        ]),
+      ],
     });
   });
 
@@ -33,19 +41,19 @@ describe('Shell', () => {
   }
 
   it('shows the admin link to an admin only', async () => {
-    expect((await render(person('admin'))).links).toEqual(['Webs', 'Compare options', 'Admin']);
+    expect((await render(person('admin'))).links).toEqual(['Webs', 'Compare options', 'Discussions', 'Admin']);
   });
 
   it('shows an analyst the webs and not the admin pages', async () => {
-    expect((await render(person('analyst'))).links).toEqual(['Webs', 'Compare options']);
+    expect((await render(person('analyst'))).links).toEqual(['Webs', 'Compare options', 'Discussions']);
   });
 
   it('offers the comparison of options to the roles that read them', async () => {
-    expect((await render(person('council'))).links).toEqual(['Webs', 'Compare options']);
+    expect((await render(person('council'))).links).toEqual(['Webs', 'Compare options', 'Discussions']);
   });
 
-  it('shows a stakeholder no list of webs it would be refused', async () => {
-    expect((await render(person('stakeholder'))).links).toEqual([]);
+  it('shows a stakeholder no list of webs it would be refused, only the discussions open to them', async () => {
+    expect((await render(person('stakeholder'))).links).toEqual(['Discussions']);
   });
 
   it('names the signed-in person and their role in the toolbar', async () => {
@@ -60,6 +68,16 @@ describe('Shell', () => {
     const { element, links } = await render(null);
     expect(links).toEqual([]);
     expect(element.querySelector('sw-caution')?.textContent).toContain('indicative only');
+  });
+
+  it('leaves the caution to the pages that say it beside their results, so it is said once', async () => {
+    const { fixture, element } = await render(person('council'));
+    await TestBed.inject(Router).navigateByUrl('/webs');
+    fixture.detectChanges();
+    expect(element.querySelector('footer sw-caution')).not.toBeNull();
+    await TestBed.inject(Router).navigateByUrl('/runs/r-1');
+    fixture.detectChanges();
+    expect(element.querySelector('footer sw-caution')).toBeNull();
   });
 
   it('signs out and goes to the sign-in page', async () => {
