@@ -1,15 +1,23 @@
 import { TestBed } from '@angular/core/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { Subject } from 'rxjs';
+import type { RunSummary } from '@seinework/contracts';
+import { OptionsApi } from '../options/options-api';
 import { fixtureDocument, fixtureRun } from './result-fixture';
 import { ResultsStore } from './results-store';
 
 describe('ResultsStore', () => {
   let store: InstanceType<typeof ResultsStore>;
   let http: HttpTestingController;
+  /** The run's server-sent events, as the browser's EventSource would deliver them (jsdom has none). */
+  let events: Subject<RunSummary>;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({ providers: [ResultsStore, provideHttpClient(), provideHttpClientTesting()] });
+    events = new Subject<RunSummary>();
+    TestBed.configureTestingModule({
+      providers: [ResultsStore, provideHttpClient(), provideHttpClientTesting(), { provide: OptionsApi, useValue: { runEvents: () => events } }],
+    });
     store = TestBed.inject(ResultsStore);
     http = TestBed.inject(HttpTestingController);
   });
@@ -79,8 +87,48 @@ describe('ResultsStore', () => {
     await loading;
     expect(store.doc()).toBeNull();
     expect(store.indicators()).toEqual([]);
-    expect(store.notDone()).toBe('This run is running (40 of 100 draws). Reload the page when it is done.');
+    expect(store.notDone()).toBe('This run is running (40 of 100 draws). The result shows here as soon as it is done.');
     http.expectNone('/api/options/sensitivity');
+  });
+
+  it('follows an unfinished run live and shows its result once it is done', async () => {
+    const loading = store.load('run-1');
+    const running = fixtureRun('running');
+    http.expectOne((r) => r.url === '/api/runs/run-1').flush(running);
+    await Promise.resolve();
+    flushExtras();
+    await Promise.resolve();
+    http.expectOne('/api/webs/web-1/versions/version-1').flush({ id: 'version-1', number: 1, web: fixtureDocument().web });
+    await loading;
+    expect(store.following()).toBe(true);
+
+    events.next({ ...running, progress: { done: 70, total: 100 } });
+    expect(store.notDone()).toBe('This run is running (70 of 100 draws). The result shows here as soon as it is done.');
+
+    events.next({ ...running, status: 'done', progress: { done: 100, total: 100 } });
+    const again = http.expectOne((r) => r.url === '/api/runs/run-1');
+    expect(again.request.params.get('tables')).toBe('all');
+    again.flush(fixtureRun('done', fixtureDocument()));
+    await new Promise((resolve) => setTimeout(resolve));
+    http.expectOne('/api/options/sensitivity').flush({ response: 'bottom-up', rows: [], byRobustness: [], byCatchValue: [] });
+    await new Promise((resolve) => setTimeout(resolve));
+    expect(store.following()).toBe(false);
+    expect(store.notDone()).toBeNull();
+    expect(store.doc()).not.toBeNull();
+    expect(store.indicators().length).toBeGreaterThan(0);
+  });
+
+  it('falls back to asking for a reload when the run can no longer be followed', async () => {
+    const loading = store.load('run-1');
+    http.expectOne((r) => r.url === '/api/runs/run-1').flush(fixtureRun('queued'));
+    await Promise.resolve();
+    flushExtras();
+    await Promise.resolve();
+    http.expectOne('/api/webs/web-1/versions/version-1').flush({ id: 'version-1', number: 1, web: fixtureDocument().web });
+    await loading;
+    events.error(new Error('The run can no longer be followed.'));
+    expect(store.following()).toBe(false);
+    expect(store.notDone()).toMatch(/Reload the page when it is done\.$/);
   });
 
   it('says why a run failed', async () => {

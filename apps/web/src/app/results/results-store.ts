@@ -1,8 +1,9 @@
 import { computed, inject } from '@angular/core';
 import { HttpErrorResponse } from '@angular/common/http';
-import { patchState, signalStore, withComputed, withMethods, withState } from '@ngrx/signals';
-import { firstValueFrom } from 'rxjs';
+import { patchState, signalStore, withComputed, withHooks, withMethods, withState } from '@ngrx/signals';
+import { firstValueFrom, type Subscription } from 'rxjs';
 import type { OptionDetail, RunDetail, VersionDetail } from '@seinework/contracts';
+import { FINISHED, OptionsApi } from '../options/options-api';
 import { errorMessage } from '../webs/request-error';
 import { ResultsApi } from './results-api';
 import type { HarvestSensitivity, ScenarioDocument } from './result-document';
@@ -19,14 +20,16 @@ interface ResultsState {
   sensitivity: HarvestSensitivity | null;
   sensitivityLoading: boolean;
   sensitivityError: string | null;
+  /** Whether an unfinished run is being followed live, so the page can promise to show the result. */
+  following: boolean;
 }
 
-const initial: ResultsState = { run: null, loading: false, error: null, version: null, option: null, sensitivity: null, sensitivityLoading: false, sensitivityError: null };
+const initial: ResultsState = { run: null, loading: false, error: null, version: null, option: null, sensitivity: null, sensitivityLoading: false, sensitivityError: null, following: false };
 
 /** One run and its result document, with the rows each part of the result page shows. */
 export const ResultsStore = signalStore(
   withState<ResultsState>(initial),
-  withComputed(({ run, version, option, sensitivity }) => {
+  withComputed(({ run, version, option, sensitivity, following }) => {
     const doc = computed(() => (run()?.status === 'done' && run()?.result ? (run()!.result as ScenarioDocument) : null));
     return {
       doc,
@@ -47,16 +50,49 @@ export const ResultsStore = signalStore(
         if (!current || current.status === 'done') return null;
         if (current.status === 'failed') return `This run failed: ${current.error ?? 'no message was kept'}.`;
         if (current.status === 'cancelled') return 'This run was cancelled before it finished.';
-        return `This run is ${current.status} (${current.progress.done} of ${current.progress.total} draws). Reload the page when it is done.`;
+        const where = `This run is ${current.status} (${current.progress.done} of ${current.progress.total} draws).`;
+        return following() ? `${where} The result shows here as soon as it is done.` : `${where} Reload the page when it is done.`;
       }),
     };
   }),
-  withMethods((store, api = inject(ResultsApi)) => {
+  withMethods((store, api = inject(ResultsApi), runs = inject(OptionsApi)) => {
     let latest = 0;
+    let live: Subscription | null = null;
+    function stopFollowing(): void {
+      live?.unsubscribe();
+      live = null;
+    }
+    /** Follows an unfinished run's events; once it ends, reads it again with its result and every table. */
+    function follow(request: number, runId: string): void {
+      patchState(store, { following: true });
+      live = runs.runEvents(runId).subscribe({
+        next: (summary) => {
+          if (request !== latest) return;
+          patchState(store, { run: { ...store.run()!, status: summary.status, progress: summary.progress, error: summary.error } });
+          if (FINISHED.has(summary.status)) {
+            stopFollowing();
+            void finish(request, runId);
+          }
+        },
+        // the stream went (server restarted, run removed): the page falls back to asking for a reload
+        error: () => request === latest && patchState(store, { following: false }),
+      });
+    }
+    async function finish(request: number, runId: string): Promise<void> {
+      try {
+        const run = await firstValueFrom(api.run(runId));
+        if (request !== latest) return;
+        patchState(store, { run, following: false });
+        if (store.doc()) await loadSensitivity(request);
+      } catch (error) {
+        if (request === latest) patchState(store, { following: false, error: `The finished run could not be read: ${errorMessage(error)}` });
+      }
+    }
     async function loadSensitivity(request: number): Promise<void> {
       const version = store.version();
       const run = store.run();
-      if (!version || !run) return;
+      // asked for both when the baseline arrives and when a followed run finishes: once is enough
+      if (!version || !run || store.sensitivityLoading() || store.sensitivity()) return;
       patchState(store, { sensitivityLoading: true, sensitivityError: null });
       try {
         const sensitivity = await firstValueFrom(api.sensitivity(version.web, run.inputs.option.response));
@@ -68,6 +104,7 @@ export const ResultsStore = signalStore(
     return {
       async load(id: string): Promise<void> {
         const request = ++latest;
+        stopFollowing();
         patchState(store, { ...initial, loading: true });
         try {
           const run = await firstValueFrom(api.run(id));
@@ -81,6 +118,7 @@ export const ResultsStore = signalStore(
         }
         // the option's purpose, the baseline's name and number, then its harvest sensitivity: extras, so a refusal leaves the result shown
         const run = store.run()!;
+        if (!FINISHED.has(run.status)) follow(request, run.id);
         firstValueFrom(api.option(run.optionId)).then(
           (option) => request === latest && patchState(store, { option }),
           () => undefined,
@@ -95,6 +133,8 @@ export const ResultsStore = signalStore(
         }
         if (store.doc()) await loadSensitivity(request);
       },
+      stopFollowing,
     };
   }),
+  withHooks({ onDestroy: (store) => store.stopFollowing() }),
 );
