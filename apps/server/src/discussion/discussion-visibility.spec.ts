@@ -92,7 +92,7 @@ describe('what a stakeholder reads', () => {
     expect((await stakeholder.get(`/api/options/${shared.optionId}`)).status).toBe(404);
     expect((await stakeholder.get(`/api/runs/${shared.runId}`)).status).toBe(404);
     expect((await stakeholder.get(`/api/webs/${webId}/versions/${versionId}`)).status).toBe(404);
-    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `option:${shared.optionId}`));
+    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `option:${shared.optionId}`)).orderBy(auditEvents.id);
     expect(events.map((e) => [e.action, /for public comment|Public comment on/.test(e.detail)])).toEqual([
       ['option.created', false],
       ['option.shared', true],

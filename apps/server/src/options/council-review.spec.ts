@@ -65,7 +65,7 @@ describe('council review', () => {
     expect((await baseline.analyst.delete(`/api/shares/${shareId}`)).status).toBe(409);
     expect((await council.get(`/api/options/${shared}`)).status).toBe(404);
     expect((await staff.get(`/api/options/${shared}`)).status).toBe(404);
-    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `option:${shared}`));
+    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `option:${shared}`)).orderBy(auditEvents.id);
     expect(events.map((e) => e.action)).toEqual(['option.created', 'option.shared', 'option.share-withdrawn']);
   });
 

@@ -148,7 +148,7 @@ describe('listing, editing, duplicating and deleting', () => {
     await storeRun(t.database.db, running, null, 'running');
     expect((await baseline.analyst.delete(`/api/options/${running}`)).status).toBe(409);
     expect((await baseline.analyst.delete('/api/options/no-such-option')).status).toBe(404);
-    const audited = await t.database.db.select().from(auditEvents).where(like(auditEvents.subject, `option:${shared}`));
+    const audited = await t.database.db.select().from(auditEvents).where(like(auditEvents.subject, `option:${shared}`)).orderBy(auditEvents.id);
     expect(audited.map((e) => e.action)).toEqual(['option.created', 'option.shared', 'option.share-withdrawn', 'option.deleted']);
   });
 });

@@ -27,7 +27,7 @@ describe('seedDemo', () => {
     expect(stored.filter((u) => u.name.endsWith('(demo)')).map((u) => u.role)).toEqual(['stakeholder', 'stakeholder', 'stakeholder']);
     expect(await database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.created'))).toHaveLength(everyone.length);
     // the demo web: created and published by the demo analyst
-    expect((await database.db.select().from(auditEvents).where(like(auditEvents.action, 'web.%'))).map((e) => e.action)).toEqual(['web.created', 'web.published']);
+    expect((await database.db.select().from(auditEvents).where(like(auditEvents.action, 'web.%')).orderBy(auditEvents.id)).map((e) => e.action)).toEqual(['web.created', 'web.published']);
     expect(await seedDemo(database, 'development')).toEqual({ seeded: false });
     expect(await database.db.select().from(users)).toHaveLength(everyone.length);
   });
