@@ -1,5 +1,4 @@
-import { SCALAR_INDICATORS, type CommentAnchor, type Web } from '@seinework/contracts';
-import { INDICATOR_LABELS } from '../results/indicator-labels';
+import { INDICATOR_NAMES, SCALAR_INDICATORS, type CommentAnchor, type Web } from '@seinework/contracts';
 
 /** Something of the result a comment can point at, with the words the screen shows for it. */
 export interface AnchorChoice {
@@ -7,14 +6,10 @@ export interface AnchorChoice {
   label: string;
 }
 
-const fishingInBalance = 'Fishing-in-Balance index';
-
 /** The words for what a comment points at ("Total catch", "compartment Forage fish"). */
 export function anchorLabel(anchor: CommentAnchor, web: Web | null): string {
   if (anchor.kind === 'indicator') {
-    if (anchor.key === 'fishingInBalance') return fishingInBalance;
-    const label = (INDICATOR_LABELS as Record<string, { name: string } | undefined>)[anchor.key];
-    return label?.name ?? anchor.key;
+    return (INDICATOR_NAMES as Record<string, string | undefined>)[anchor.key] ?? anchor.key;
   }
   const compartment = web?.compartments.find((c) => c.id === anchor.key);
   return `compartment ${compartment?.name ?? anchor.key}`;
