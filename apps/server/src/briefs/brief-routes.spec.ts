@@ -130,6 +130,17 @@ describe('the brief of an option', () => {
     expect((await staff.get(`/api/options/${forage}/brief.pdf?run=${gillnetRun}`)).status).toBe(404);
     expect((await staff.get(`/api/options/${forage}/brief.pdf?colour=red`)).status).toBe(400);
   });
+
+  it('without ?run= is about the run the option is shared with, else its latest finished run', async () => {
+    const option = await createOption(baseline, { ...forageCut, name: 'Shared with its first run' });
+    const first = await finishedRun(option, { draws: 0, seed: 1 });
+    const second = await finishedRun(option, { draws: 0, seed: 2 });
+    const shared = await baseline.analyst.post(`/api/options/${option}/shares`).send({ audience: 'council', runId: first });
+    expect(shared.status).toBe(201);
+    expect(((await staff.get(`/api/options/${option}/brief`)).body as OptionBrief).run.id).toBe(first);
+    expect((await baseline.analyst.delete(`/api/shares/${shared.body.id}`)).status).toBe(204);
+    expect(((await baseline.analyst.get(`/api/options/${option}/brief`)).body as OptionBrief).run.id).toBe(second);
+  });
 });
 
 describe('the brief of a comparison', () => {

@@ -1,7 +1,7 @@
-import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNotNull, isNull, sql } from 'drizzle-orm';
 import type { BriefBand, BriefWeb, ComparisonBrief, CurrentUser, OptionBrief } from '@seinework/contracts';
 import type { Db } from '../db/database';
-import { options, runs, webs, webVersions } from '../db/schema';
+import { options, runs, shares, webs, webVersions } from '../db/schema';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { RequestError } from '../http/errors';
 import { readWeb } from '../webs/version-rows';
@@ -111,6 +111,15 @@ export class BriefService {
       if (run.status !== 'done') throw new RequestError(409, `This run is ${run.status}: a brief shows a finished run`);
       return run;
     }
+    // without ?run=: the run the option is shared with (what the council and the public discuss), else the latest finished one
+    const [sharedRun] = await this.db
+      .select(columns)
+      .from(shares)
+      .innerJoin(runs, eq(runs.id, shares.runId))
+      .where(and(eq(shares.optionId, optionId), isNull(shares.withdrawnAt), isNotNull(shares.runId), eq(runs.status, 'done')))
+      .orderBy(desc(shares.sharedAt), desc(shares.id))
+      .limit(1);
+    if (sharedRun) return sharedRun;
     const [run] = await this.db
       .select(columns)
       .from(runs)
