@@ -53,6 +53,25 @@ test('a council member reads the result of a shared option: indicators with band
   await expect(page.locator('#main').getByRole('note')).toContainText('indicative only');
   await shot(page, 'result-forage-fish');
 
+  // the discussion's comments beside what they point at (the demo discussion: the catch, the seabirds, the forage fish)
+  const catchBadge = page.locator('#indicator-totalCatch sw-comment-badge button');
+  await expect(catchBadge).toHaveAccessibleName(/^\d+ comments? on this: show them$/);
+  await expect(page.locator('#compartment-seabirds sw-comment-badge button')).toBeVisible();
+  await catchBadge.click();
+  const catchComments = page.locator('#comments-indicator-totalCatch');
+  await expect(catchComments).toBeInViewport();
+  await expect(catchComments).toContainText('Forty per cent off the purse-seine quota');
+  await expect(page.locator('#comments')).not.toContainText('landing over his quota'); // hidden by staff: not shown to council members
+  await shot(page, 'result-comments');
+  await expect(page.locator('#main').getByRole('link', { name: 'Discussion', exact: true })).toHaveAttribute('href', `/discussions/${forage!.id}`);
+  await expect(page.getByRole('link', { name: 'Brief' })).toHaveCount(0); // briefs are for analysts, staff and admins
+  await catchComments.getByRole('button', { name: 'Show it in the result' }).click();
+  await expect(page.locator('#indicator-totalCatch')).toBeInViewport();
+  // a comment's link (#compartment-…) opens the page at that row
+  await page.goto(`/runs/${runId}#compartment-forage-fish`);
+  await expect(page.locator('#compartment-forage-fish')).toBeInViewport();
+  await page.goto(`/runs/${runId}`);
+
   // key indicators: a band for each, and the robust mark in words where the band excludes zero
   const run = await (await page.request.get(`/api/runs/${runId}`)).json();
   const catchBand = run.result.uncertainty.indicators.totalCatch.difference;

@@ -38,12 +38,19 @@ export const ResultCommentsStore = signalStore(
   withState<ResultCommentsState>(initial),
   withComputed(({ items }) => {
     const readable = computed(() => items().filter((c) => c.text !== null));
+    /** What a comment is about: its own anchor, or for a reply its parent's (the answer to a question about the catch is about the catch). */
+    const aboutOf = computed(() => {
+      const anchorOf = new Map(items().map((c) => [c.id, c.anchor]));
+      return (comment: CommentItem): CommentAnchor | null => comment.anchor ?? (comment.parentId ? (anchorOf.get(comment.parentId) ?? null) : null);
+    });
     const groups = computed<AnchoredGroup[]>(() => {
       const byToken = new Map<string, AnchoredGroup>();
+      const about = aboutOf();
       for (const comment of readable()) {
-        if (!comment.anchor) continue;
-        const token = anchorToken(comment.anchor);
-        const group = byToken.get(token) ?? { token, anchor: comment.anchor, comments: [] };
+        const anchor = about(comment);
+        if (!anchor) continue;
+        const token = anchorToken(anchor);
+        const group = byToken.get(token) ?? { token, anchor, comments: [] };
         group.comments.push(comment);
         byToken.set(token, group);
       }
@@ -54,7 +61,7 @@ export const ResultCommentsStore = signalStore(
       /** How many readable comments point at each `kind:key`. */
       counts: computed(() => new Map(groups().map((g) => [g.token, g.comments.length]))),
       anchoredCount: computed(() => groups().reduce((sum, g) => sum + g.comments.length, 0)),
-      unanchoredCount: computed(() => readable().filter((c) => !c.anchor).length),
+      unanchoredCount: computed(() => readable().filter((c) => !aboutOf()(c)).length),
     };
   }),
   withMethods((store, api = inject(DiscussionApi)) => {

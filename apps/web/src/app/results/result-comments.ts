@@ -30,8 +30,8 @@ export function commentGroupId(anchor: CommentAnchor): string {
         No comment in this option's discussion points at an indicator or a compartment yet.
       } @else {
         {{ store.anchoredCount() === 1 ? 'One comment' : store.anchoredCount() + ' comments' }} of this option's discussion
-        {{ store.anchoredCount() === 1 ? 'points' : 'point' }} at something in the result; the
-        <mat-icon aria-hidden="true" inline>forum</mat-icon> marks beside the rows above lead here.
+        {{ store.anchoredCount() === 1 ? 'is' : 'are' }} about an indicator or a compartment of the result (replies go with what they answer);
+        the <mat-icon aria-hidden="true" inline>forum</mat-icon> marks beside the rows above lead here.
       }
       @if (store.unanchoredCount() > 0) {
         {{ store.unanchoredCount() === 1 ? 'One more comment is' : store.unanchoredCount() + ' more comments are' }} about the option as a whole.

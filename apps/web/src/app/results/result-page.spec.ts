@@ -75,6 +75,7 @@ describe('ResultPage', () => {
       comment('c-3', { kind: 'compartment', key: 'fish' }, 'What about the fish?'),
       comment('c-4', { kind: 'indicator', key: 'tst' }, null, true),
       comment('c-5', null, 'On the option as a whole'),
+      { ...comment('c-6', null, 'An answer about the catch'), parentId: 'c-1' },
     ];
     http.expectOne((r) => r.url === '/api/options/option-1/comments').flush({
       items, total: items.length, page: 1, pageSize: 50,
@@ -83,21 +84,23 @@ describe('ResultPage', () => {
     await fixture.whenStable();
     fixture.detectChanges();
 
-    expect(root.querySelector('#indicator-totalCatch sw-comment-badge button')!.getAttribute('aria-label')).toBe('2 comments on this: show them');
-    expect(root.querySelector('#indicator-card-totalCatch sw-comment-badge button')!.textContent).toContain('2');
+    // the reply goes with the comment it answers
+    expect(root.querySelector('#indicator-totalCatch sw-comment-badge button')!.getAttribute('aria-label')).toBe('3 comments on this: show them');
+    expect(root.querySelector('#indicator-card-totalCatch sw-comment-badge button')!.textContent).toContain('3');
     expect(root.querySelector('#compartment-fish sw-comment-badge button')!.getAttribute('aria-label')).toBe('1 comment on this: show them');
     // a comment whose text the reader may not see is not counted
     expect(root.querySelector('#indicator-tst sw-comment-badge button')).toBeNull();
 
     const section = root.querySelector('#comments')!;
     expect(section.querySelector('h2')!.textContent).toBe('Comments on this result');
-    expect(section.textContent).toContain('3 comments of this option');
+    expect(section.textContent).toContain('4 comments of this option');
     expect(section.textContent).toContain('One more comment is about the option as a whole');
     const catchGroup = section.querySelector('#comments-indicator-totalCatch')!;
     expect(catchGroup.querySelector('h3')!.textContent).toBe('About Total catch');
     // shown as the characters typed, never as markup
     expect(catchGroup.textContent).toContain('The catch <b>falls</b> too far');
     expect(catchGroup.querySelector('b')).toBeNull();
+    expect(catchGroup.textContent).toContain('An answer about the catch');
     expect(section.querySelector('#comments-compartment-fish h3')!.textContent).toBe('About compartment Fish');
     expect(root.querySelector('a[href="/discussions/option-1"]')).not.toBeNull();
     expect(Array.from(root.querySelectorAll('.toc button')).map((b) => b.textContent!.trim())).toContain('Comments');
