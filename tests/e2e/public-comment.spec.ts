@@ -194,6 +194,7 @@ test('an option opened for public comment: comment on an indicator, the follower
   await page.goto(`${unsubscribe.pathname}${unsubscribe.search}`);
   await expect(page.getByRole('heading', { level: 1, name: 'You are unsubscribed' })).toBeVisible();
   await expect(page.locator('body')).toContainText(`You no longer follow the discussion of “${OPTION}”`);
+  await expect(page.locator('body')).toContainText('To follow it again, open its discussion in Seinework');
   await shot(page, 'public-comment-unsubscribed');
   await page.goto(`/discussions/${optionId}`);
   await expect(page.getByRole('region', { name: 'State of the discussion' }).getByRole('button', { name: 'Follow by e-mail' })).toBeVisible();
