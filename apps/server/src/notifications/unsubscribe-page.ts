@@ -14,7 +14,11 @@ export function unsubscribedPage(outcome: Unsubscribed): string {
       : outcome.kind === 'optionShared'
         ? 'Seinework will no longer e-mail you when a harvest option is shared with you.'
         : 'Seinework will no longer e-mail you when public comment on an option you follow is about to close.';
-  return page('You are unsubscribed', said, 'You can turn notices on again in Seinework, under your account.');
+  const next =
+    outcome.kind === 'newComment'
+      ? 'To follow it again, open its discussion in Seinework and choose “Follow by e-mail”.'
+      : 'You can turn notices on again in Seinework, under your account.';
+  return page('You are unsubscribed', said, next);
 }
 
 export function unknownLinkPage(): string {

@@ -25,6 +25,9 @@ import { CommentText } from './comment-text';
         @if (c.editedAt) {
           <span class="quiet">(edited)</span>
         }
+        @if (showAudience()) {
+          <span class="badge" [class.public]="c.audience === 'public'">{{ c.audience === 'public' ? 'Public comment' : 'Council review' }}</span>
+        }
       </header>
       @if (c.anchor; as anchor) {
         <p class="about">
@@ -43,7 +46,10 @@ import { CommentText } from './comment-text';
           @if (c.text === null) {
             This comment was hidden by staff.
           } @else {
-            Hidden by staff{{ c.hiddenReason ? ': ' + c.hiddenReason : '' }}. Only its author and staff see it.
+            Hidden by staff: only its author and staff see it.
+            @if (c.hiddenReason) {
+              <span class="reason">Reason: {{ c.hiddenReason }}</span>
+            }
           }
         </p>
       }
@@ -101,6 +107,23 @@ import { CommentText } from './comment-text';
       font-size: 0.875rem;
       color: var(--mat-sys-on-surface-variant);
     }
+    .hidden-mark .reason {
+      display: block;
+      margin-top: 2px;
+      color: var(--mat-sys-on-surface);
+      overflow-wrap: anywhere;
+    }
+    .badge {
+      padding: 0 8px;
+      border-radius: 999px;
+      font-size: 0.75rem;
+      background: var(--mat-sys-secondary-container);
+      color: var(--mat-sys-on-secondary-container);
+    }
+    .badge.public {
+      background: var(--mat-sys-tertiary-container);
+      color: var(--mat-sys-on-tertiary-container);
+    }
     .about a {
       color: var(--mat-sys-primary);
     }
@@ -117,6 +140,8 @@ export class CommentCard {
   readonly web = input<Web | null>(null);
   /** The run the discussion is about: anchors link into its result page. */
   readonly runId = input<string | null>(null);
+  /** Mark which discussion the comment belongs to (the page shows both of an option's discussions). */
+  readonly showAudience = input(false);
   readonly canReply = input(false);
   readonly canModerate = input(false);
   readonly busy = input(false);

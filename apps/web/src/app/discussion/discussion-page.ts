@@ -9,7 +9,6 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { firstValueFrom } from 'rxjs';
 import type { CommentItem } from '@seinework/contracts';
 import { SessionStore } from '../auth/session-store';
-import { Caution } from '../shared/caution';
 import { anchorChoices } from './anchor-choices';
 import { CommentCard } from './comment-card';
 import { CommentForm, type CommentDraft } from './comment-form';
@@ -23,7 +22,7 @@ import { HideDialog } from './hide-dialog';
  */
 @Component({
   selector: 'sw-discussion-page',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, Caution, CommentCard, CommentForm],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, CommentCard, CommentForm],
   providers: [DiscussionStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './discussion-page.html',
@@ -48,7 +47,15 @@ export class DiscussionPage {
   });
   protected readonly canPost = computed(() => this.session.can('comments.post') && (this.store.discussion()?.open ?? false));
   protected readonly canModerate = computed(() => this.session.can('comments.moderate'));
+  /** The option's page is for roles that read options; stakeholders read its inputs on the result page. */
+  protected readonly readsOptionPages = computed(() => this.session.can('options.read-all') || this.session.can('options.read-shared'));
   protected readonly publicShare = computed(() => this.store.option()?.shares.find((s) => s.audience === 'public') ?? null);
+  /** Whether the reader sees both discussions of the option (council review and public comment), shown on one page. */
+  protected readonly twoDiscussions = computed(() => {
+    const audiences = new Set<string>((this.store.option()?.shares ?? []).map((s) => s.audience));
+    for (const comment of this.store.page()?.items ?? []) audiences.add(comment.audience);
+    return audiences.size > 1;
+  });
 
   ngOnInit(): void {
     void this.store.load(this.optionId());

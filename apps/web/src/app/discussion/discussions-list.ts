@@ -1,10 +1,11 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { RouterLink } from '@angular/router';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { firstValueFrom } from 'rxjs';
 import type { DiscussionSummary } from '@seinework/contracts';
+import { SessionStore } from '../auth/session-store';
 import { errorMessage } from '../webs/request-error';
 import { DiscussionApi } from './discussion-api';
 
@@ -17,7 +18,12 @@ import { DiscussionApi } from './discussion-api';
     @if (!embedded()) {
       <h1>Discussions</h1>
     }
-    <p class="explain">Harvest options shared for council review or opened for public comment. Open a discussion to read the option's result and comment on the record.</p>
+    @if (!embedded()) {
+      <p class="explain">
+        {{ readsCouncilReview() ? 'Harvest options shared for council review or opened for public comment.' : 'Harvest options opened for public comment.' }}
+        Open a discussion to read the option's result and comment on the record.
+      </p>
+    }
     @if (loading()) {
       <mat-progress-bar mode="indeterminate" aria-label="Loading the discussions" />
     } @else if (error(); as message) {
@@ -66,6 +72,9 @@ export class DiscussionsList {
   /** Inside another page (the welcome page) that has its own heading. */
   readonly embedded = input(false);
   private readonly api = inject(DiscussionApi);
+  private readonly session = inject(SessionStore);
+  /** Stakeholders read only what is open for public comment, never the council's review. */
+  protected readonly readsCouncilReview = computed(() => this.session.can('options.read-shared') || this.session.can('options.read-all'));
   protected readonly items = signal<DiscussionSummary[]>([]);
   protected readonly loading = signal(true);
   protected readonly error = signal<string | null>(null);
