@@ -31,7 +31,13 @@ test('staff print and download the brief of a shared option', async ({ page }) =
   const optionId = await sharedForageOption(page.request);
   const brief = (await (await page.request.get(`/api/options/${optionId}/brief`)).json()) as OptionBrief;
 
-  await page.goto(`/brief/options/${optionId}`);
+  // from the option page, as staff would: its Brief link names the shared run
+  await page.goto(`/options/${optionId}`);
+  await expect(page.getByRole('heading', { level: 1, name: brief.option.name })).toBeVisible();
+  await expect(page.getByRole('navigation', { name: 'About this option' }).getByRole('link', { name: 'Discussion' })).toHaveAttribute('href', `/discussions/${optionId}`);
+  await shot(page, 'brief-from-option-page');
+  await page.getByRole('navigation', { name: 'About this option' }).getByRole('link', { name: 'Brief' }).click();
+  await expect(page).toHaveURL(new RegExp(`/brief/options/${optionId}\\?run=${brief.run.id}$`));
   await expect(page.getByRole('heading', { level: 1, name: brief.option.name })).toBeVisible();
   for (const heading of ['What the option changes', 'Where these numbers come from', 'Caution', 'Key indicators before and after', 'Where the web sits on the fitness curve', 'The trophic ladder', 'Who depends on whom: the largest changes', 'Fleet effects', 'Preferences recorded', 'Discussion']) {
     await expect(page.getByRole('heading', { level: 2, name: heading })).toBeVisible();
@@ -74,7 +80,11 @@ test('staff print the brief of a comparison; council members are not offered bri
   await expect.poll(async () => (await page.request.get(`/api/options/${other.id}/brief`)).status(), { timeout: 45_000, intervals: [500] }).toBe(200);
   const second = (await (await page.request.get(`/api/options/${other.id}/brief`)).json()) as OptionBrief;
 
-  await page.goto(`/brief/compare?runs=${first.run.id},${second.run.id}`);
+  // from the comparison, through its Brief link
+  await page.goto(`/compare?runs=${first.run.id},${second.run.id}`);
+  await expect(page.getByRole('heading', { level: 1, name: 'Comparison of 2 options' })).toBeVisible();
+  await page.getByRole('link', { name: 'Brief' }).click();
+  await expect(page).toHaveURL(new RegExp(`/brief/compare\\?runs=${first.run.id}(,|%2C)${second.run.id}$`));
   await expect(page.getByRole('heading', { level: 1, name: 'Comparison of 2 harvest options' })).toBeVisible();
   await expect(page.getByRole('heading', { level: 3, name: `A. ${first.option.name}` })).toBeVisible();
   await expect(page.getByRole('heading', { level: 2, name: 'Indicators side by side' })).toBeVisible();
@@ -82,6 +92,9 @@ test('staff print the brief of a comparison; council members are not offered bri
 
   const council = await browser.newPage();
   await signIn(council, 'council');
+  await council.goto(`/options/${optionId}`);
+  await expect(council.getByRole('heading', { level: 1 })).toBeVisible();
+  await expect(council.getByRole('link', { name: 'Brief' })).toHaveCount(0);
   await council.goto(`/brief/options/${optionId}`);
   await expect(council).toHaveURL(/\/webs/);
   await council.close();
