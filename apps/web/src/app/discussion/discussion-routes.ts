@@ -1,7 +1,6 @@
 import type { Routes } from '@angular/router';
-import { PAGE_CARRIES_CAUTION } from '../shared/caution';
 
 export const discussionRoutes: Routes = [
   { path: '', loadComponent: () => import('./discussions-list').then((m) => m.DiscussionsList), title: 'Discussions — Seinework' },
-  { path: ':optionId', loadComponent: () => import('./discussion-page').then((m) => m.DiscussionPage), title: 'Discussion — Seinework', data: PAGE_CARRIES_CAUTION },
+  { path: ':optionId', loadComponent: () => import('./discussion-page').then((m) => m.DiscussionPage), title: 'Discussion — Seinework' },
 ];
