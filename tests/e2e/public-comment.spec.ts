@@ -78,8 +78,9 @@ test('an option opened for public comment: comment on an indicator, the follower
   await expect(page.getByRole('button', { name: 'Open for public comment' })).toBeDisabled();
   await shot(page, 'public-comment-option-opened');
 
-  // the analyst follows the public discussion (the toolbar has no link to the discussions: by address)
-  await page.goto('/discussions');
+  // the analyst follows the public discussion: from the option page's Discussion link, on to the list through the toolbar
+  await expect(page.getByRole('navigation', { name: 'About this option' }).getByRole('link', { name: 'Discussion' })).toHaveAttribute('href', `/discussions/${optionId}`);
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Discussions' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Discussions' })).toBeVisible();
   await expect(publicCard(page)).toContainText(`Open until ${closesWords}`);
   await shot(page, 'public-comment-discussions-analyst');
@@ -106,9 +107,17 @@ test('an option opened for public comment: comment on an indicator, the follower
   await expect(page.getByText('No comments yet. Be the first to comment.')).toBeVisible();
   await expect(page.getByRole('region', { name: 'State of the discussion' })).not.toContainText('council review');
   await shot(page, 'public-comment-discussion-stakeholder');
-  // the option's own page is for those who read options; a stakeholder reads its inputs on the result page
+  // the option's own page reads for a stakeholder too: its inputs and the run the share shows, and no way to the webs they are refused
   await expect(page.getByRole('link', { name: 'Read the result' })).toBeVisible();
-  await expect(page.getByRole('link', { name: "The option's inputs" })).toHaveCount(0);
+  await page.getByRole('link', { name: "The option's inputs" }).click();
+  await expect(page.getByRole('heading', { level: 1, name: OPTION, exact: true })).toBeVisible();
+  const crumbs = page.getByRole('navigation', { name: 'Where you are' });
+  await expect(crumbs.getByRole('link', { name: 'Discussions' })).toBeVisible();
+  await expect(crumbs.getByRole('link', { name: 'Webs' })).toHaveCount(0);
+  await expect(page.getByRole('alert')).toHaveCount(0);
+  await shot(page, 'public-comment-option-stakeholder');
+  await page.goBack();
+  await expect(page.getByRole('heading', { level: 1, name: `Discussion: ${OPTION}`, exact: true })).toBeVisible();
 
   await page.getByLabel('Your comment').fill(COMMENT);
   await page.getByRole('combobox', { name: 'About (optional)' }).click();
@@ -131,7 +140,10 @@ test('an option opened for public comment: comment on an indicator, the follower
   await about.click();
   await expect(page).toHaveURL(/\/runs\/[0-9a-f-]+#indicator-totalCatch$/);
   await expect(page.getByRole('heading', { level: 1 })).toContainText(OPTION);
-  await expect(page.locator('#indicator-totalCatch')).toBeVisible();
+  // brought into view, with the comment counted beside it
+  await expect(page.locator('#indicator-totalCatch')).toBeInViewport();
+  await expect(page.locator('#indicator-totalCatch sw-comment-badge button')).toHaveAccessibleName('1 comment on this: show them');
+  await expect(page.locator('#comments-indicator-totalCatch')).toContainText(COMMENT);
   await shot(page, 'public-comment-result-stakeholder');
 
   // 3. the analyst, who follows, is e-mailed; the stakeholder, who wrote it, is not
@@ -149,7 +161,7 @@ test('an option opened for public comment: comment on an indicator, the follower
 
   // 4. staff hide the comment with a reason; they still read it, marked with the reason
   await signIn(page, 'staff');
-  await page.goto('/discussions');
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Discussions' }).click();
   await publicCard(page).click();
   await expect(page.getByRole('heading', { level: 1, name: `Discussion: ${OPTION}`, exact: true })).toBeVisible();
   await shot(page, 'public-comment-discussion-staff');

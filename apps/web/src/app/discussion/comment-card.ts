@@ -60,7 +60,7 @@ import { CommentText } from './comment-text';
       }
       @if (!editing()) {
         <div class="actions">
-          @if (canReply()) {
+          @if (canReply() && !c.hidden) {
             <button mat-button type="button" (click)="reply.emit(c)"><mat-icon>reply</mat-icon> Reply</button>
           }
           @if (c.editable) {

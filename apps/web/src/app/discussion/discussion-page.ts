@@ -47,8 +47,6 @@ export class DiscussionPage {
   });
   protected readonly canPost = computed(() => this.session.can('comments.post') && (this.store.discussion()?.open ?? false));
   protected readonly canModerate = computed(() => this.session.can('comments.moderate'));
-  /** The option's page is for roles that read options; stakeholders read its inputs on the result page. */
-  protected readonly readsOptionPages = computed(() => this.session.can('options.read-all') || this.session.can('options.read-shared'));
   protected readonly publicShare = computed(() => this.store.option()?.shares.find((s) => s.audience === 'public') ?? null);
   /** Whether the reader sees both discussions of the option (council review and public comment), shown on one page. */
   protected readonly twoDiscussions = computed(() => {

@@ -2,6 +2,8 @@ import { TestBed } from '@angular/core/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import type { OptionDetail, RunSummary } from '@seinework/contracts';
+import type { Role } from '@seinework/contracts/permissions';
+import { SessionStore } from '../auth/session-store';
 import { OptionStore } from './option-store';
 
 /** Stands in for the browser's EventSource: the test plays the server's events. */
@@ -69,9 +71,14 @@ describe('OptionStore', () => {
     FakeEventSource.opened = [];
     vi.stubGlobal('EventSource', FakeEventSource);
     TestBed.configureTestingModule({ providers: [OptionStore, provideHttpClient(), provideHttpClientTesting()] });
+    signedInAs('analyst');
     store = TestBed.inject(OptionStore);
     http = TestBed.inject(HttpTestingController);
   });
+
+  function signedInAs(role: Role): void {
+    TestBed.inject(SessionStore).signedInAs({ id: `${role}-1`, email: `${role}@demo.test`, name: `Demo ${role}`, role });
+  }
 
   afterEach(() => {
     http.verify();
@@ -106,6 +113,19 @@ describe('OptionStore', () => {
     expect(store.following()).toBe(false);
     expect(store.liveRun()!.status).toBe('done');
     expect(store.doneRuns().map((r) => r.id)).toEqual(['r1']);
+  });
+
+  it('asks a stakeholder’s browser for no list of runs (refused to them): the run the public share shows is the one listed', async () => {
+    signedInAs('stakeholder');
+    const shown = run('done', 1000);
+    const loading = store.load('o1');
+    http.expectOne('/api/options/o1').flush({ ...detail, latestRun: shown });
+    await vi.waitFor(() => http.expectOne('/api/webs/w1/versions/v1').flush({ id: 'v1', webId: 'w1', number: 1, web: { name: 'Test', unit: 'u', compartments: [], flows: [], imports: [], exports: [], respiration: [] } }));
+    await loading;
+    http.expectNone('/api/options/o1/runs');
+    expect(store.error()).toBeNull();
+    expect(store.runs()).toEqual([shown]);
+    expect(FakeEventSource.opened).toEqual([]);
   });
 
   it('starts a run with the settings given and follows it', async () => {

@@ -3,6 +3,7 @@ import { patchState, signalStore, withComputed, withMethods, withState } from '@
 import { rxMethod } from '@ngrx/signals/rxjs-interop';
 import { catchError, EMPTY, finalize, firstValueFrom, pipe, switchMap, tap } from 'rxjs';
 import type { OptionDetail, RunSummary, VersionDetail } from '@seinework/contracts';
+import { SessionStore } from '../auth/session-store';
 import { errorMessage } from '../webs/request-error';
 import { FINISHED, OptionsApi, type RunSettings, type ShareRequest } from './options-api';
 
@@ -43,7 +44,7 @@ export const OptionStore = signalStore(
     doneRuns: computed(() => runs().filter((r) => r.status === 'done')),
     frozen: computed(() => (detail()?.frozen ?? false) || runs().length > 0),
   })),
-  withMethods((store, api = inject(OptionsApi)) => {
+  withMethods((store, api = inject(OptionsApi), session = inject(SessionStore)) => {
     /** The run as it moves: one entry of the runs list, replaced in place. */
     const update = (run: RunSummary) =>
       patchState(store, { liveRun: run, runs: store.runs().map((r) => (r.id === run.id ? run : r)) });
@@ -80,9 +81,12 @@ export const OptionStore = signalStore(
       async load(optionId: string): Promise<void> {
         patchState(store, { ...initial, loading: true });
         try {
-          const [detail, runs] = await Promise.all([firstValueFrom(api.detail(optionId)), firstValueFrom(api.runs(optionId))]);
-          patchState(store, { detail, runs: runs.items, loading: false });
-          const unfinished = runs.items.find((r) => !FINISHED.has(r.status));
+          // a stakeholder reads no list of runs: only the run the public share shows, as the option's latest
+          const readsRuns = session.can('options.read-all') || session.can('options.read-shared');
+          const [detail, listed] = await Promise.all([firstValueFrom(api.detail(optionId)), readsRuns ? firstValueFrom(api.runs(optionId)) : Promise.resolve(null)]);
+          const runs = listed?.items ?? (detail.latestRun ? [detail.latestRun] : []);
+          patchState(store, { detail, runs, loading: false });
+          const unfinished = runs.find((r) => !FINISHED.has(r.status));
           if (unfinished) {
             patchState(store, { liveRun: unfinished });
             follow(unfinished.id);
