@@ -70,6 +70,9 @@ test('an option opened for public comment: comment on an indicator, the follower
   const closesOn = closes.toISOString().slice(0, 10);
   const closesWords = `${closes.getUTCDate()} ${MONTHS[closes.getUTCMonth()]} ${closes.getUTCFullYear()}`;
   await page.getByLabel('Comments close on (optional)').fill(closesOn);
+  // the date in words under the field, whatever order the browser writes it in
+  const inWords = (options: Intl.DateTimeFormatOptions) => closes.toLocaleDateString('en-GB', { ...options, timeZone: 'UTC' });
+  await expect(page.getByText(`At the end of ${inWords({ weekday: 'long' })} ${closes.getUTCDate()} ${inWords({ month: 'long' })} ${closes.getUTCFullYear()} (23:59 UTC)`)).toBeVisible();
   await shot(page, 'public-comment-option-share-panel');
   await page.getByRole('button', { name: 'Open for public comment' }).click();
   const publicShare = shares.getByRole('listitem').filter({ hasText: 'Open for public comment' });
