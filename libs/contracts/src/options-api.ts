@@ -36,6 +36,20 @@ export const shareBodySchema = z.strictObject({
   runId: z.string().max(64).optional(),
 });
 
+/** `GET /api/comparisons?runs=ID,ID` and the comparison brief: 2 to 6 distinct run ids, separated by commas. */
+export const comparisonQuerySchema = z.strictObject({
+  runs: z
+    .string({ error: 'runs must list 2 to 6 run ids, separated by commas' })
+    .transform((list) => list.split(',').map((part) => part.trim()))
+    .pipe(
+      z
+        .array(z.string().min(1).max(64), { error: 'runs must list run ids' })
+        .min(2, 'compare at least 2 runs')
+        .max(6, 'compare at most 6 runs')
+        .refine((ids) => new Set(ids).size === ids.length, 'a run is listed twice'),
+    ),
+});
+
 export const preferenceBodySchema = z.strictObject({
   reason: text('reason', 4000).min(1, 'reason must not be empty'),
   /** The comparison the preference was recorded in (run ids), for the record. */

@@ -1,5 +1,6 @@
 import { Router, type Response } from 'express';
 import { z } from 'zod';
+import { comparisonQuerySchema } from '@seinework/contracts';
 import { currentUser } from '../auth/guards';
 import type { Db } from '../db/database';
 import type { EngineJobs } from '../engine/engine-jobs';
@@ -17,19 +18,6 @@ import { optionBriefPdf } from './pdf/option-brief-pdf';
 const id = z.string().min(1).max(64);
 const optionAddress = z.strictObject({ id });
 const optionQuery = z.strictObject({ run: id.optional() });
-/** As GET /api/comparisons validates its list. */
-const comparisonQuery = z.strictObject({
-  runs: z
-    .string({ error: 'runs must list 2 to 6 run ids, separated by commas' })
-    .transform((list) => list.split(',').map((part) => part.trim()))
-    .pipe(
-      z
-        .array(id, { error: 'runs must list run ids' })
-        .min(2, 'compare at least 2 runs')
-        .max(6, 'compare at most 6 runs')
-        .refine((ids) => new Set(ids).size === ids.length, 'a run is listed twice'),
-    ),
-});
 
 const readsBriefs = requireAnyAction('briefs.read');
 
@@ -70,12 +58,12 @@ export function briefRoutes({ db, engine }: { db: Db; engine: EngineJobs }): Rou
   });
 
   router.get('/comparisons/brief', readsBriefs, async (request, response) => {
-    const { runs } = parseInput(comparisonQuery, request.query, 'query');
+    const { runs } = parseInput(comparisonQuerySchema, request.query, 'query');
     response.json(await service.comparisonBrief(currentUser(response), runs));
   });
 
   router.get('/comparisons/brief.pdf', readsBriefs, async (request, response) => {
-    const { runs } = parseInput(comparisonQuery, request.query, 'query');
+    const { runs } = parseInput(comparisonQuerySchema, request.query, 'query');
     const brief = await service.comparisonBrief(currentUser(response), runs);
     sendPdf(response, await comparisonBriefPdf(brief), safeFileName(`comparison ${brief.web.name}`, brief.options[0]!.runId));
   });

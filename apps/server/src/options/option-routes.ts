@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { harvestOptionSchema, preferenceBodySchema, shareBodySchema } from '@seinework/contracts';
+import { comparisonQuerySchema, harvestOptionSchema, preferenceBodySchema, shareBodySchema } from '@seinework/contracts';
 import { currentUser, requireAction } from '../auth/guards';
 import type { Db } from '../db/database';
 import type { EngineJobs } from '../engine/engine-jobs';
@@ -23,18 +23,6 @@ const id = z.string().min(1).max(64);
 const versionAddress = z.strictObject({ id, versionId: id });
 const optionAddress = z.strictObject({ id });
 const duplicateBody = z.strictObject({ name: harvestOptionSchema.shape.name.optional() });
-const comparisonQuery = z.strictObject({
-  runs: z
-    .string({ error: 'runs must list 2 to 6 run ids, separated by commas' })
-    .transform((list) => list.split(',').map((part) => part.trim()))
-    .pipe(
-      z
-        .array(id, { error: 'runs must list run ids' })
-        .min(2, 'compare at least 2 runs')
-        .max(6, 'compare at most 6 runs')
-        .refine((ids) => new Set(ids).size === ids.length, 'a run is listed twice'),
-    ),
-});
 
 /** Readers of options: every option, or the shared ones (the services narrow what each sees). */
 const readsOptions = requireAnyAction('options.read-all', 'options.read-shared');
@@ -112,7 +100,7 @@ export function optionStoreRoutes({ db, engine, notifications }: { db: Db; engin
   });
 
   router.get('/comparisons', readsOptions, async (request, response) => {
-    const { runs } = parseInput(comparisonQuery, request.query, 'query');
+    const { runs } = parseInput(comparisonQuerySchema, request.query, 'query');
     response.json(await comparisonService.compare(currentUser(response), runs));
   });
 

@@ -3,13 +3,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { BriefActions } from './brief-actions';
 import { BriefApi } from './brief-api';
 import { BriefChart } from './brief-chart';
+import { BriefPreferences } from './brief-preferences';
 import { BriefDatePipe, BriefNumberPipe } from './brief-format';
 import { BriefStore } from './brief-store';
 
 /** `/brief/compare?runs=ID,ID`: the brief of a comparison of 2–6 runs as a document to print, with its PDF. */
 @Component({
   selector: 'sw-comparison-brief',
-  imports: [MatProgressBarModule, BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe],
+  imports: [MatProgressBarModule, BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe, BriefPreferences],
   providers: [BriefStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './comparison-brief.html',
