@@ -40,10 +40,12 @@ export class DiscussionPage {
 
   protected readonly replyingTo = signal<CommentItem | null>(null);
   protected readonly choices = computed(() => anchorChoices(this.store.web()));
-  /** The run the share shows, else the newest run: comment anchors link into its result page. */
+  /** The run the reader's discussion shows (its share's), else any share's, else the newest run: comment anchors link into its result page. */
   protected readonly runId = computed(() => {
     const option = this.store.option();
-    return option?.shares.find((s) => s.runId)?.runId ?? option?.latestRun?.id ?? null;
+    const audience = this.store.discussion()?.audience;
+    const shown = option?.shares.find((s) => s.audience === audience && s.runId) ?? option?.shares.find((s) => s.runId);
+    return shown?.runId ?? option?.latestRun?.id ?? null;
   });
   protected readonly canPost = computed(() => this.session.can('comments.post') && (this.store.discussion()?.open ?? false));
   protected readonly canModerate = computed(() => this.session.can('comments.moderate'));
