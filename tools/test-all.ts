@@ -46,7 +46,8 @@ function vitestSuite(label: string, config: string, paths: string[] = [], env: N
 /** The server's tests again, each test file's database on a real PostgreSQL 15 server started for the run. */
 function postgresSuite(label: string): Tally {
   try {
-    return withPostgresServer(55432, (url) => vitestSuite(label, 'vitest.config.ts', ['apps/server'], { TEST_DATABASE_URL: url }));
+    // --throw-deprecation: pg warns (and pg 9 refuses) when one connection, a transaction's, gets overlapping queries
+    return withPostgresServer(55432, (url) => vitestSuite(label, 'vitest.config.ts', ['apps/server'], { TEST_DATABASE_URL: url, NODE_OPTIONS: '--throw-deprecation' }));
   } catch (error) {
     console.log(`\n▶ ${label}\n${(error as Error).message}`);
     return { passed: 0, failed: 1 };

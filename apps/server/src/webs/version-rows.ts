@@ -27,13 +27,13 @@ async function insertChunked(tx: Db, table: PgTable, rows: readonly Record<strin
 
 export async function readWeb(db: Db, versionId: string): Promise<Web> {
   const [version] = await db.select().from(webVersions).where(eq(webVersions.id, versionId));
-  const [compartments, flows, imports, exports, respiration] = await Promise.all([
-    db.select().from(versionCompartments).where(eq(versionCompartments.versionId, versionId)).orderBy(asc(versionCompartments.position)),
-    db.select().from(versionFlows).where(eq(versionFlows.versionId, versionId)).orderBy(asc(versionFlows.position)),
-    db.select().from(versionImports).where(eq(versionImports.versionId, versionId)).orderBy(asc(versionImports.position)),
-    db.select().from(versionExports).where(eq(versionExports.versionId, versionId)).orderBy(asc(versionExports.position)),
-    db.select().from(versionRespiration).where(eq(versionRespiration.versionId, versionId)).orderBy(asc(versionRespiration.position)),
-  ]);
+  // one after another, not Promise.all: `db` may be a transaction (the seed publishes inside one), and a
+  // transaction's single connection takes one query at a time (pg 9 refuses overlapping ones); versions are cached
+  const compartments = await db.select().from(versionCompartments).where(eq(versionCompartments.versionId, versionId)).orderBy(asc(versionCompartments.position));
+  const flows = await db.select().from(versionFlows).where(eq(versionFlows.versionId, versionId)).orderBy(asc(versionFlows.position));
+  const imports = await db.select().from(versionImports).where(eq(versionImports.versionId, versionId)).orderBy(asc(versionImports.position));
+  const exports = await db.select().from(versionExports).where(eq(versionExports.versionId, versionId)).orderBy(asc(versionExports.position));
+  const respiration = await db.select().from(versionRespiration).where(eq(versionRespiration.versionId, versionId)).orderBy(asc(versionRespiration.position));
   return present({
     name: version.webName,
     unit: version.unit,
