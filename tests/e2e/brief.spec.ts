@@ -83,6 +83,7 @@ test('staff print the brief of a comparison; council members are not offered bri
   // from the comparison, through its Brief link
   await page.goto(`/compare?runs=${first.run.id},${second.run.id}`);
   await expect(page.getByRole('heading', { level: 1, name: 'Comparison of 2 options' })).toBeVisible();
+  await shot(page, 'brief-from-comparison');
   await page.getByRole('link', { name: 'Brief' }).click();
   await expect(page).toHaveURL(new RegExp(`/brief/compare\\?runs=${first.run.id}(,|%2C)${second.run.id}$`));
   await expect(page.getByRole('heading', { level: 1, name: 'Comparison of 2 harvest options' })).toBeVisible();
