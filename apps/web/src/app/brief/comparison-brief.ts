@@ -1,16 +1,16 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { BriefActions } from './brief-actions';
 import { BriefApi } from './brief-api';
 import { BriefChart } from './brief-chart';
 import { BriefPreferences } from './brief-preferences';
+import { BriefStatus } from './brief-status';
 import { BriefDatePipe, BriefNumberPipe } from './brief-format';
 import { BriefStore } from './brief-store';
 
 /** `/brief/compare?runs=ID,ID`: the brief of a comparison of 2–6 runs as a document to print, with its PDF. */
 @Component({
   selector: 'sw-comparison-brief',
-  imports: [MatProgressBarModule, BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe, BriefPreferences],
+  imports: [BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe, BriefPreferences, BriefStatus],
   providers: [BriefStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './comparison-brief.html',

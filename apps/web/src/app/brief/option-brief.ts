@@ -1,17 +1,17 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
 import { Title } from '@angular/platform-browser';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { BriefActions } from './brief-actions';
 import { BriefApi } from './brief-api';
 import { BriefChart } from './brief-chart';
 import { BriefPreferences } from './brief-preferences';
+import { BriefStatus } from './brief-status';
 import { BriefDatePipe, BriefNumberPipe, BriefPercentPipe } from './brief-format';
 import { BriefStore } from './brief-store';
 
 /** `/brief/options/:id[?run=]`: the brief of an option's run as a document to print, with its PDF to download. */
 @Component({
   selector: 'sw-option-brief',
-  imports: [MatProgressBarModule, BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe, BriefPercentPipe, BriefPreferences],
+  imports: [BriefActions, BriefChart, BriefDatePipe, BriefNumberPipe, BriefPercentPipe, BriefPreferences, BriefStatus],
   providers: [BriefStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './option-brief.html',
