@@ -87,7 +87,7 @@ export async function seedDemoDiscussion(db: Db): Promise<void> {
     people.set(person.email.slice(0, -DEMO_EMAIL_DOMAIN.length), id);
   }
   const ids = new Map<string, string>();
-  // a few minutes apart, after the share: one transaction would give every row the same now()
+  // a second apart, after the share (never in the future of a reader who opens it at once): one transaction would give every row the same now()
   const start = share.sharedAt.getTime();
   for (const [position, demo] of DISCUSSION.entries()) {
     const id = randomUUID();
