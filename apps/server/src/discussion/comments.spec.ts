@@ -43,6 +43,10 @@ describe('posting', () => {
     expect(second.items.map((c) => c.text)).toEqual(['The fifty-first']);
     expect(second.total).toBe(51);
     expect((await council.get(commentsUrl(shared)).query({ page: 0 })).status).toBe(400);
+    const huge = await council.get(`${commentsUrl(shared)}?page=99999999999999999999`);
+    expect(huge.status).toBe(400);
+    expect(huge.body.details).toEqual([...new Set(huge.body.details)]); // each problem said once
+    expect(huge.body.details.join(' ')).toMatch(/page must/);
     // posting followed the discussion, once
     const followed = await t.database.db.select().from(follows).where(eq(follows.optionId, shared.optionId));
     expect(followed.map((f) => f.userId)).toEqual([await userId(t.database.db, 'stakeholder')]);

@@ -19,7 +19,7 @@ import { DiscussionService } from './discussion-service';
 const id = z.string().min(1).max(64);
 const address = z.strictObject({ id });
 const pageQuery = z.strictObject({
-  page: z.coerce.number({ error: 'page must be a whole number from 1' }).int('page must be a whole number from 1').min(1, 'page must be a whole number from 1').max(100_000).default(1),
+  page: z.coerce.number({ error: 'page must be a whole number from 1' }).int('page must be a whole number from 1').min(1, 'page must be a whole number from 1').max(100_000, 'page must be at most 100000').default(1),
 });
 /** Who reads discussions: whoever reads options (every one, the shared ones, or those shared for public comment). */
 const readsDiscussions = requireAnyAction('options.read-all', 'options.read-shared', 'options.read-public');
