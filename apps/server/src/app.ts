@@ -7,6 +7,7 @@ import { balancingRoutes } from './http/balancing-routes';
 import { errorHandler, RequestError } from './http/errors';
 import { optionRoutes } from './http/option-routes';
 import { jsonBody } from './http/json-body';
+import { refuseNul } from './http/refuse-nul';
 import { originCheck } from './http/origin-check';
 import { createEngineJobs, type EngineJobs } from './engine/engine-jobs';
 import { mountAccounts } from './auth/accounts';
@@ -74,6 +75,8 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   app.use('/api/balancing', balancingRoutes(engine));
   app.use('/api/options', optionRoutes(engine));
   app.use(jsonBody());
+  // below here every route may reach the database, which refuses U+0000 in text: refused in the address and query at once
+  app.use(refuseNul());
   app.get('/api/health', (_request, response) => {
     response.json({ status: 'ok' });
   });

@@ -33,7 +33,12 @@ const commentText = z
 /** What a comment points at in the option's result: an indicator (ScalarIndicators key or `fishingInBalance`) or a compartment (its id). */
 export const commentAnchorSchema = z.strictObject({
   kind: z.enum(['indicator', 'compartment'], { error: 'anchor.kind must be "indicator" or "compartment"' }),
-  key: z.string({ error: 'anchor.key must be a string' }).trim().min(1, 'anchor.key must not be empty').max(100, 'anchor.key must be at most 100 characters'),
+  key: z
+    .string({ error: 'anchor.key must be a string' })
+    .trim()
+    .min(1, 'anchor.key must not be empty')
+    .max(100, 'anchor.key must be at most 100 characters')
+    .refine((key) => !COMMENT_CONTROL.test(key), 'anchor.key must not contain control characters'),
 });
 export type CommentAnchor = z.infer<typeof commentAnchorSchema>;
 
@@ -56,7 +61,12 @@ export const commentEditSchema = z.strictObject({ text: commentText });
 
 /** `POST /api/comments/:id/hide` (staff): the reason is logged and shown to the author and staff. */
 export const hideCommentSchema = z.strictObject({
-  reason: z.string({ error: 'reason must be a string' }).trim().min(1, 'reason must not be empty').max(500, 'reason must be at most 500 characters'),
+  reason: z
+    .string({ error: 'reason must be a string' })
+    .trim()
+    .min(1, 'reason must not be empty')
+    .max(500, 'reason must be at most 500 characters')
+    .refine((reason) => !COMMENT_CONTROL.test(reason), 'reason must not contain control characters'),
 });
 
 /** One comment as `GET /api/options/:id/comments` lists it. */

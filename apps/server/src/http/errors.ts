@@ -2,6 +2,7 @@ import type { ErrorRequestHandler } from 'express';
 import { capProblems, type UploadProblem } from '@seinework/contracts';
 import { WebError } from '@seinework/network-analysis';
 import { QueueFullError } from '@seinework/draw-pool';
+import { isUnstorableText } from '../db/postgres-error';
 import { EngineOverBudget, EngineRefusal, EngineStopping, type RefusedInput } from '../engine/engine-errors';
 
 /** When a client refused for a full queue should try again: about one heavy request's time. */
@@ -49,6 +50,7 @@ function asRequestError(error: unknown): RequestError | undefined {
   if (error instanceof QueueFullError) return new RequestError(503, 'The server is busy with other analyses: try again shortly', [], { 'Retry-After': String(RETRY_AFTER_SECONDS) });
   if (error instanceof EngineOverBudget || error instanceof EngineStopping) return new RequestError(503, error.message);
   if (isMulterError(error)) return new RequestError(error.code.startsWith('LIMIT_') && error.code.endsWith('_SIZE') ? 413 : 400, `The upload was refused: ${error.message}`);
+  if (isUnstorableText(error)) return new RequestError(400, 'The request contains characters Seinework cannot store (such as NUL): remove them and send again');
   const status = clientErrorStatus(error);
   // body parsers and other middleware (http-errors): a client error whose message is meant to be shown
   if (status !== undefined) return new RequestError(status, (error as Error).message);
