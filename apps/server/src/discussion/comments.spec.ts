@@ -189,3 +189,15 @@ describe('hiding', () => {
     expect(events[1]!.actorId).toBe(await userId(t.database.db, 'staff'));
   });
 });
+
+describe('the record', () => {
+  it('keeps an option with comments: deleting it is refused even after its share is withdrawn', async () => {
+    const shared = await sharedOption(t, 'public');
+    expect((await stakeholder.post(commentsUrl(shared)).send({ text: 'On the record' })).status).toBe(201);
+    expect((await shared.baseline.analyst.delete(`/api/shares/${shared.shareId}`)).status).toBe(204);
+    const refused = await shared.baseline.analyst.delete(`/api/options/${shared.optionId}`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error).toBe('This option has comments from its discussion: it is kept as part of the record');
+    expect(await t.database.db.select({ n: count() }).from(comments).where(eq(comments.optionId, shared.optionId))).toEqual([{ n: 1 }]);
+  });
+});

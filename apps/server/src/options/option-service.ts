@@ -3,7 +3,7 @@ import { and, asc, count, desc, eq, inArray, isNull, type SQL } from 'drizzle-or
 import { TEXT_LIMITS, type CurrentUser, type HarvestOption, type OptionDetail, type OptionPreview, type OptionSummary, type ShareSummary, type StoredOptionBody } from '@seinework/contracts';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
-import { options, preferences, runs, shares, users, webVersions } from '../db/schema';
+import { comments, options, preferences, runs, shares, users, webVersions } from '../db/schema';
 import type { EngineJobs } from '../engine/engine-jobs';
 import { RequestError } from '../http/errors';
 import { readWeb } from '../webs/version-rows';
@@ -112,6 +112,9 @@ export class OptionService {
       // the council's preferences are part of the record of its review
       const [preferred] = await tx.select({ id: preferences.id }).from(preferences).where(eq(preferences.optionId, id)).limit(1);
       if (preferred) throw new RequestError(409, 'Council members recorded preferences on this option: it is kept as part of the review');
+      // so are the comments: people spoke on the record, even after the share was withdrawn
+      const [commented] = await tx.select({ id: comments.id }).from(comments).where(eq(comments.optionId, id)).limit(1);
+      if (commented) throw new RequestError(409, 'This option has comments from its discussion: it is kept as part of the record');
       await tx.delete(options).where(eq(options.id, id));
       await recordAudit(tx, { actorId: user.id, action: 'option.deleted', subject: `option:${id}`, detail: `Harvest option "${row.name}" deleted with its runs` });
     });
