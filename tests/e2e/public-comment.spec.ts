@@ -207,6 +207,11 @@ test('an option opened for public comment: comment on an indicator, the follower
   // the unsubscribe link works without signing in, and stops the analyst following the option
   const unsubscribe = new URL(unsubscribeLink!);
   await page.goto(`${unsubscribe.pathname}${unsubscribe.search}`);
+  // opening the link only asks (mail scanners open every link); the button does it
+  await expect(page.getByRole('heading', { level: 1, name: 'Stop these e-mails?' })).toBeVisible();
+  await expect(page.locator('body')).toContainText(`Stop the e-mails about new comments on “${OPTION}”`);
+  await shot(page, 'public-comment-unsubscribe-asked');
+  await page.getByRole('button', { name: 'Stop these e-mails' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'You are unsubscribed' })).toBeVisible();
   await expect(page.locator('body')).toContainText(`You no longer follow the discussion of “${OPTION}”`);
   await expect(page.locator('body')).toContainText('To follow it again, open its discussion in Seinework');

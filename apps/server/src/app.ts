@@ -24,7 +24,7 @@ import { runRoutes } from './runs/run-routes';
 import { discussionRoutes } from './discussion/discussion-routes';
 import { closingSoonScheduler, type ClosingSoonScheduler } from './notifications/closing-soon-scheduler';
 import { Notifications } from './notifications/notification-service';
-import { notificationRoutes } from './notifications/notification-routes';
+import { notificationRoutes, UNSUBSCRIBE_FORM_PATH } from './notifications/notification-routes';
 import { briefRoutes } from './briefs/brief-routes';
 
 export interface AppSettings {
@@ -74,7 +74,7 @@ export async function createApp(settings: AppSettings): Promise<Express> {
   app.use('/api/analyses', analysisRoutes(engine));
   app.use('/api/balancing', balancingRoutes(engine));
   app.use('/api/options', optionRoutes(engine));
-  app.use(jsonBody());
+  app.use(jsonBody(undefined, [UNSUBSCRIBE_FORM_PATH]));
   // below here every route may reach the database, which refuses U+0000 in text: refused in the address and query at once
   app.use(refuseNul());
   app.get('/api/health', (_request, response) => {

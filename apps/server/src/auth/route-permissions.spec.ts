@@ -94,6 +94,7 @@ const ROUTES: readonly RouteRow[] = [
   { method: 'GET', path: '/api/me/notifications', access: 'signed-in' },
   { method: 'PUT', path: '/api/me/notifications', access: 'signed-in' },
   { method: 'GET', path: '/api/notifications/unsubscribe', access: 'public' },
+  { method: 'POST', path: '/api/notifications/unsubscribe', access: 'public' },
   // briefs of options and comparisons (briefs)
   { method: 'GET', path: '/api/options/:id/brief', access: 'briefs.read' },
   { method: 'GET', path: '/api/options/:id/brief.pdf', access: 'briefs.read' },

@@ -6,15 +6,16 @@ import { parseJsonText } from './request-body';
  * Reads JSON request bodies, every failure a 4xx naming it: a body that is not JSON, or repeats a
  * key (JSON.parse would silently keep the last), is a 400; too large a 413; a compressed body that
  * does not decompress a 400; a content type or encoding we do not read a 415. Multipart bodies
- * pass through untouched for the upload routes to read.
+ * pass through untouched for the upload routes to read, and form-encoded ones for the few addresses
+ * a plain HTML form posts to (`formPaths`, e.g. the unsubscribe page's button).
  */
 
 export const BODY_LIMIT_BYTES = 5 * 1024 * 1024;
 
 const JSON_TYPES = ['application/json', '+json'];
 
-export function jsonBody(limitBytes = BODY_LIMIT_BYTES): RequestHandler {
-  const readText = bodyText(limitBytes);
+export function jsonBody(limitBytes = BODY_LIMIT_BYTES, formPaths: readonly string[] = []): RequestHandler {
+  const readText = bodyText(limitBytes, formPaths);
   return (request, response, next) =>
     readText(request, response, (error?: unknown) => {
       if (error) return next(error);
@@ -35,10 +36,11 @@ export function jsonBody(limitBytes = BODY_LIMIT_BYTES): RequestHandler {
  * Reads a JSON body as text into `request.body` (a string; undefined without a body), with every
  * check of jsonBody() but the parsing: for routes that hand the text to an engine worker to parse.
  */
-export function bodyText(limitBytes = BODY_LIMIT_BYTES): RequestHandler {
+export function bodyText(limitBytes = BODY_LIMIT_BYTES, formPaths: readonly string[] = []): RequestHandler {
   const readText = express.text({ type: () => true, limit: limitBytes, defaultCharset: 'utf-8' });
   return (request, response, next) => {
     if (typeof request.body === 'string' || !hasBody(request) || request.is('multipart/form-data')) return next();
+    if (request.is('application/x-www-form-urlencoded') && formPaths.includes(request.path)) return next();
     if (!request.is(JSON_TYPES)) {
       return next(new RequestError(415, `Send the request body as JSON (Content-Type: application/json), not ${request.get('content-type') ?? 'without a type'}`));
     }

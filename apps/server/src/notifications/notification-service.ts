@@ -164,6 +164,18 @@ export class Notifications {
    * Uses an unsubscribe link: turns its kind of notice off (a newComment link unfollows its option).
    * A used link answers the same again without doing anything more; null for a token we never sent.
    */
+  /** What a link would stop, and whether it was used already, without using it (the confirming page a GET answers). */
+  async unsubscribeLink(token: string): Promise<(Unsubscribed & { used: boolean }) | null> {
+    if (!looksLikeOneTimeToken(token)) return null;
+    const [row] = await this.db
+      .select({ token: unsubscribeTokens, optionName: options.name })
+      .from(unsubscribeTokens)
+      .leftJoin(options, eq(options.id, unsubscribeTokens.optionId))
+      .where(eq(unsubscribeTokens.tokenHash, hashOneTimeToken(token)));
+    if (!row) return null;
+    return { kind: row.token.kind, optionName: row.token.kind === 'newComment' ? row.optionName : null, used: row.token.usedAt !== null };
+  }
+
   async unsubscribe(token: string): Promise<Unsubscribed | null> {
     if (!looksLikeOneTimeToken(token)) return null;
     const tokenHash = hashOneTimeToken(token);

@@ -24,8 +24,19 @@ afterAll(() => t.close());
 const STAKEHOLDER = demoEmail('stakeholder');
 const COUNCIL = demoEmail('council');
 
-/** Opens a link as someone who clicked it in their mail: no cookie, no Origin header. */
-const openLink = (token: string) => request(t.app).get('/api/notifications/unsubscribe').query({ token });
+/** The link as a mail scanner would open it: no cookie, no Origin header, nothing pressed. */
+const peekLink = (token: string) => request(t.app).get('/api/notifications/unsubscribe').query({ token });
+
+/**
+ * Opens a link as someone who clicked it in their mail and pressed "Stop these e-mails": no cookie; the
+ * page's form posts the token back from our own origin. A link used before (or unknown) answers at once.
+ */
+async function openLink(token: string) {
+  const opened = await peekLink(token);
+  if (!opened.text.includes('<form method="post"')) return opened;
+  const field = /name="token" value="([^"]*)"/.exec(opened.text)![1]!;
+  return request(t.app).post('/api/notifications/unsubscribe').set('Origin', TEST_ORIGIN).type('form').send({ token: field });
+}
 
 describe('preferences', () => {
   it('are every kind on by default, and changed by PUT /api/me/notifications', async () => {
@@ -136,6 +147,35 @@ describe('new comment', () => {
     expect(page.status).toBe(200);
     expect(page.text).toContain('Gillnets &lt;script&gt;alert(1)&lt;/script&gt; &amp; &quot;more&quot;');
     expect(page.text).not.toContain('<script>');
+  });
+
+  it('only asks when the link is opened (mail scanners open every link): the button does it, from our own pages only', async () => {
+    const shared = await sharedOption(t, 'public');
+    await council.put(`/api/options/${shared.optionId}/follow`);
+    await stakeholder.post(`/api/options/${shared.optionId}/comments`).send({ text: 'Scanned?' });
+    const message = (await mailTo(t, COUNCIL, /^A new comment/)).filter((m) => m.text.includes(shared.optionId)).at(-1)!;
+    const token = unsubscribeToken(message.text);
+    for (let visit = 0; visit < 3; visit++) {
+      const asked = await peekLink(token);
+      expect(asked.status).toBe(200);
+      expect(asked.text).toContain('Stop these e-mails?');
+      expect(asked.text).toContain('Nothing changes until you press the button.');
+      expect(asked.headers['content-security-policy']).toContain("form-action 'self'");
+      expect(asked.headers['referrer-policy']).toBe('same-origin');
+    }
+    const [unused] = await t.database.db.select().from(unsubscribeTokens).where(eq(unsubscribeTokens.tokenHash, hashOneTimeToken(token)));
+    expect(unused!.usedAt).toBeNull();
+    expect((await council.get(`/api/options/${shared.optionId}/comments`)).body.discussion.following).toBe(true);
+    // a form on another site cannot press it
+    const foreign = await request(t.app).post('/api/notifications/unsubscribe').set('Origin', 'https://elsewhere.example').type('form').send({ token });
+    expect(foreign.status).toBe(403);
+    expect((await council.get(`/api/options/${shared.optionId}/comments`)).body.discussion.following).toBe(true);
+    const pressed = await openLink(token);
+    expect(pressed.text).toContain('You no longer follow the discussion of');
+    expect((await council.get(`/api/options/${shared.optionId}/comments`)).body.discussion.following).toBe(false);
+    // a form with no token, or a token we never sent: the unknown-link page
+    expect((await request(t.app).post('/api/notifications/unsubscribe').set('Origin', TEST_ORIGIN).type('form').send({})).status).toBe(404);
+    expect((await request(t.app).post('/api/notifications/unsubscribe').set('Origin', TEST_ORIGIN).type('form').send({ token: 'A'.repeat(43) })).status).toBe(404);
   });
 
   it('answers an unknown or malformed token with a 404 page', async () => {
