@@ -79,6 +79,28 @@ describe('DiscussionStore', () => {
     expect(store.pageCount()).toBe(2);
   });
 
+  it('counts a comment that went through as posted even when the list cannot be read again (no reason to post it twice)', async () => {
+    await loaded(1);
+    const posting = store.post({ text: 'Posted once' });
+    http.expectOne((r) => r.method === 'POST').flush({ id: 'c2' }, { status: 201, statusText: 'Created' });
+    await vi.waitFor(() => http.expectOne((r) => r.method === 'GET' && r.url === '/api/options/o1/comments').flush({ error: 'Busy' }, { status: 503, statusText: 'Unavailable' }));
+    expect(await posting).toBe(true);
+    expect(store.notice()).toEqual({ kind: 'done', text: 'Your comment was posted. The comments could not be read again (Busy): reload the page to see them.' });
+  });
+
+  it('keeps the discussion shown when another page of comments cannot be loaded', async () => {
+    await loaded(60);
+    const paging = store.showPage(2);
+    expect(store.loading()).toBe(true);
+    http.expectOne((r) => r.url === '/api/options/o1/comments' && r.params.get('page') === '2').flush({ error: 'Busy' }, { status: 503, statusText: 'Unavailable' });
+    await paging;
+    expect(store.loading()).toBe(false);
+    expect(store.error()).toBeNull();
+    expect(store.option()?.name).toBe('Cut');
+    expect(store.threads().map((t) => t.comment.id)).toEqual(['a']);
+    expect(store.notice()).toEqual({ kind: 'problem', text: 'That page of comments could not be loaded: Busy' });
+  });
+
   it('keeps the server’s refusal as a notice and the page as it was', async () => {
     await loaded(1);
     const posting = store.post({ text: 'Too late' });

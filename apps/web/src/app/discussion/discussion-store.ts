@@ -59,18 +59,26 @@ export const DiscussionStore = signalStore(
       patchState(store, { page: await firstValueFrom(api.comments(optionId, pageNumber)) });
     };
 
-    /** Runs a change, then shows the page it should be seen on; a refusal is kept as a notice. */
+    /**
+     * Runs a change, then shows the page it should be seen on; a refusal is kept as a notice. Once the
+     * change went through it counts as done, even if the list cannot be read again: saying "failed" then
+     * would invite posting the same comment twice.
+     */
     const change = async (work: () => Promise<unknown>, done: string, pageAfter: () => number): Promise<boolean> => {
       patchState(store, { busy: true, notice: null });
       try {
         await work();
-        await showPage(pageAfter());
-        patchState(store, { busy: false, notice: { kind: 'done', text: done } });
-        return true;
       } catch (error) {
         patchState(store, { busy: false, notice: { kind: 'problem', text: errorMessage(error) } });
         return false;
       }
+      try {
+        await showPage(pageAfter());
+        patchState(store, { busy: false, notice: { kind: 'done', text: done } });
+      } catch (error) {
+        patchState(store, { busy: false, notice: { kind: 'done', text: `${done} The comments could not be read again (${errorMessage(error)}): reload the page to see them.` } });
+      }
+      return true;
     };
     const currentPage = () => store.page()?.page ?? 1;
     const lastPageWithOneMore = () => Math.max(1, Math.ceil(((store.page()?.total ?? 0) + 1) / (store.page()?.pageSize ?? COMMENTS_PAGE_SIZE)));
@@ -93,13 +101,14 @@ export const DiscussionStore = signalStore(
         }
       },
 
+      /** Another page of comments; a failure is a notice, the page shown and anything being typed stay. */
       async showPage(pageNumber: number): Promise<void> {
-        patchState(store, { loading: true, error: null });
+        patchState(store, { loading: true, notice: null });
         try {
           await showPage(pageNumber);
           patchState(store, { loading: false });
         } catch (error) {
-          patchState(store, { loading: false, error: errorMessage(error) });
+          patchState(store, { loading: false, notice: { kind: 'problem', text: `That page of comments could not be loaded: ${errorMessage(error)}` } });
         }
       },
 
