@@ -128,6 +128,30 @@ describe('OptionStore', () => {
     expect(FakeEventSource.opened).toEqual([]);
   });
 
+  it('stops following the run of the option shown before when another option opens', async () => {
+    const source = await loadWithRunning();
+    const loading = store.load('o2');
+    http.expectOne('/api/options/o2').flush({ ...detail, id: 'o2', latestRun: null });
+    http.expectOne('/api/options/o2/runs').flush({ items: [], total: 0 });
+    await vi.waitFor(() => http.expectOne('/api/webs/w1/versions/v1').flush({ id: 'v1', webId: 'w1', number: 1, web: { name: 'Test', unit: 'u', compartments: [], flows: [], imports: [], exports: [], respiration: [] } }));
+    await loading;
+    expect(source.readyState).toBe(FakeEventSource.CLOSED);
+    expect(store.following()).toBe(false);
+    expect(store.liveRun()).toBeNull();
+    expect(store.detail()!.id).toBe('o2');
+  });
+
+  it('keeps the option shown, and says why, when its baseline cannot be read', async () => {
+    const loading = store.load('o1');
+    http.expectOne('/api/options/o1').flush({ ...detail, latestRun: null });
+    http.expectOne('/api/options/o1/runs').flush({ items: [], total: 0 });
+    await vi.waitFor(() => http.expectOne('/api/webs/w1/versions/v1').flush({ error: 'Busy' }, { status: 503, statusText: 'Unavailable' }));
+    await loading;
+    expect(store.error()).toBeNull();
+    expect(store.detail()!.name).toBe('Cut the seine');
+    expect(store.actionError()).toBe('The baseline could not be read, so compartments and fleets show by their ids: Busy');
+  });
+
   it('starts a run with the settings given and follows it', async () => {
     const source = await loadWithRunning();
     source.send('status', run('cancelled', 10));

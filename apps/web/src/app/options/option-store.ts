@@ -45,22 +45,31 @@ export const OptionStore = signalStore(
     frozen: computed(() => (detail()?.frozen ?? false) || runs().length > 0),
   })),
   withMethods((store, api = inject(OptionsApi), session = inject(SessionStore)) => {
+    let latest = 0;
     /** The run as it moves: one entry of the runs list, replaced in place. */
     const update = (run: RunSummary) =>
       patchState(store, { liveRun: run, runs: store.runs().map((r) => (r.id === run.id ? run : r)) });
 
-    const follow = rxMethod<string>(
+    /** Follows one run's events; a new id switches to that run, null stops following. */
+    let current: string | null = null;
+    const follow = rxMethod<string | null>(
       pipe(
-        tap(() => patchState(store, { following: true, followError: null })),
+        tap((runId) => {
+          current = runId;
+          patchState(store, { following: runId !== null, followError: null });
+        }),
         switchMap((runId) =>
-          api.runEvents(runId).pipe(
-            tap(update),
-            catchError((error: unknown) => {
-              patchState(store, { followError: errorMessage(error) });
-              return EMPTY;
-            }),
-            finalize(() => patchState(store, { following: false })),
-          ),
+          runId === null
+            ? EMPTY
+            : api.runEvents(runId).pipe(
+                tap(update),
+                catchError((error: unknown) => {
+                  patchState(store, { followError: errorMessage(error) });
+                  return EMPTY;
+                }),
+                // a stream left for another run (or for none) says nothing of the one followed now
+                finalize(() => current === runId && patchState(store, { following: false })),
+              ),
         ),
       ),
     );
@@ -79,22 +88,28 @@ export const OptionStore = signalStore(
 
     return {
       async load(optionId: string): Promise<void> {
+        const request = ++latest;
+        follow(null); // the run of the option shown before is not this one's
         patchState(store, { ...initial, loading: true });
         try {
           // a stakeholder reads no list of runs: only the run the public share shows, as the option's latest
           const readsRuns = session.can('options.read-all') || session.can('options.read-shared');
           const [detail, listed] = await Promise.all([firstValueFrom(api.detail(optionId)), readsRuns ? firstValueFrom(api.runs(optionId)) : Promise.resolve(null)]);
           const runs = listed?.items ?? (detail.latestRun ? [detail.latestRun] : []);
+          if (request !== latest) return;
           patchState(store, { detail, runs, loading: false });
           const unfinished = runs.find((r) => !FINISHED.has(r.status));
           if (unfinished) {
             patchState(store, { liveRun: unfinished });
             follow(unfinished.id);
           }
-          patchState(store, { baseline: await firstValueFrom(api.version(detail.webId, detail.versionId)) });
+          const baseline = await firstValueFrom(api.version(detail.webId, detail.versionId));
+          if (request === latest) patchState(store, { baseline });
         } catch (error) {
-          if (store.detail()) return; // without the baseline the adjustments are shown by their ids
-          patchState(store, { loading: false, error: `This harvest option could not be loaded: ${errorMessage(error)}` });
+          if (request !== latest) return;
+          // without the baseline the adjustments are shown by their ids: the page stays, and says why
+          if (store.detail()) patchState(store, { actionError: `The baseline could not be read, so compartments and fleets show by their ids: ${errorMessage(error)}` });
+          else patchState(store, { loading: false, error: `This harvest option could not be loaded: ${errorMessage(error)}` });
         }
       },
 
