@@ -118,6 +118,22 @@ describe('ResultsStore', () => {
     expect(store.indicators().length).toBeGreaterThan(0);
   });
 
+  it('says so, once, when a followed run finished but its result cannot be read', async () => {
+    const loading = store.load('run-1');
+    const running = fixtureRun('running');
+    http.expectOne((r) => r.url === '/api/runs/run-1').flush(running);
+    await Promise.resolve();
+    flushExtras();
+    await Promise.resolve();
+    http.expectOne('/api/webs/web-1/versions/version-1').flush({ id: 'version-1', number: 1, web: fixtureDocument().web });
+    await loading;
+    events.next({ ...running, status: 'done', progress: { done: 100, total: 100 } });
+    http.expectOne((r) => r.url === '/api/runs/run-1').flush({ error: 'Busy' }, { status: 503, statusText: 'Unavailable' });
+    await new Promise((resolve) => setTimeout(resolve));
+    expect(store.run()).toBeNull();
+    expect(store.error()).toBe('The run finished, but its result could not be read: Busy. Reload the page to try again.');
+  });
+
   it('falls back to asking for a reload when the run can no longer be followed', async () => {
     const loading = store.load('run-1');
     http.expectOne((r) => r.url === '/api/runs/run-1').flush(fixtureRun('queued'));

@@ -47,7 +47,8 @@ export const ResultsStore = signalStore(
       /** Why there is no result to show, for a run that is not done. */
       notDone: computed(() => {
         const current = run();
-        if (!current || current.status === 'done') return null;
+        if (!current) return null;
+        if (current.status === 'done') return current.result ? null : 'This run is done, but its result was not sent with it: reload the page.';
         if (current.status === 'failed') return `This run failed: ${current.error ?? 'no message was kept'}.`;
         if (current.status === 'cancelled') return 'This run was cancelled before it finished.';
         const where = `This run is ${current.status} (${current.progress.done} of ${current.progress.total} draws).`;
@@ -85,7 +86,8 @@ export const ResultsStore = signalStore(
         patchState(store, { run, following: false });
         if (store.doc()) await loadSensitivity(request);
       } catch (error) {
-        if (request === latest) patchState(store, { following: false, error: `The finished run could not be read: ${errorMessage(error)}` });
+        // the page's one heading is then "No result to show", with why
+        if (request === latest) patchState(store, { following: false, run: null, error: `The run finished, but its result could not be read: ${errorMessage(error)}. Reload the page to try again.` });
       }
     }
     async function loadSensitivity(request: number): Promise<void> {
