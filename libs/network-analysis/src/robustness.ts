@@ -20,7 +20,9 @@ export interface FitnessPosition {
   side: FitnessSide;
 }
 
-const PEAK = 1 / Math.E;
+/** The relative ascendency at the top of the fitness curve, 1/e (where dF/da = 0). */
+export const FITNESS_PEAK_A = 1 / Math.E;
+const PEAK = FITNESS_PEAK_A;
 const PEAK_TOLERANCE = 1e-9;
 
 export function robustnessOf(relativeAscendency: number): number {

@@ -20,6 +20,8 @@ import { comments, follows, options, runs, shares, users, webs } from '../db/sch
 import { RequestError } from '../http/errors';
 import type { Notifications } from '../notifications/notification-service';
 import type { OptionService } from '../options/option-service';
+import { formatInstant } from '../mail/messages';
+import { AUDIENCE_WORDS } from '../options/audience-words';
 import { shareAudiencesOf, visibleShare } from '../options/option-visibility';
 
 /**
@@ -109,7 +111,7 @@ export class DiscussionService {
     if (comment.authorId !== user.id) throw new RequestError(403, 'Only its author may edit a comment');
     if (comment.hiddenAt) throw new RequestError(409, 'This comment was hidden by staff: it can no longer be edited');
     if (this.now().getTime() - comment.createdAt.getTime() > EDIT_WINDOW_MS) {
-      throw new RequestError(403, `A comment may be edited for ${COMMENT_EDIT_MINUTES} minutes after it is posted; this one was posted at ${instant(comment.createdAt)}`);
+      throw new RequestError(403, `A comment may be edited for ${COMMENT_EDIT_MINUTES} minutes after it is posted; this one was posted at ${formatInstant(comment.createdAt)}`);
     }
     const audience = found.audience ?? 'council';
     const active = await this.sharesOf(user, comment.optionId);
@@ -305,8 +307,6 @@ export class DiscussionService {
   }
 }
 
-const AUDIENCE_WORDS = { council: 'for council review', public: 'for public comment' } as const;
-
 /** Condition on comments left-joined with their share: the discussions this person reads. */
 function commentAudience(user: CurrentUser): SQL | undefined {
   const audiences = shareAudiencesOf(user);
@@ -331,6 +331,3 @@ export function longDate(at: Date): string {
   return `${day} at ${at.toISOString().slice(11, 16)} UTC`;
 }
 
-function instant(at: Date): string {
-  return `${at.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
-}

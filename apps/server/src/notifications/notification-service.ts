@@ -224,10 +224,13 @@ export class Notifications {
       .orderBy(users.email);
   }
 
-  /** Whether this person may still read the option, and comments under a share of that audience. */
+  /**
+   * Whether this person may still read the option, and comments under a share of that audience. A
+   * comment whose share is gone reads as the council's, as the discussion service shows it.
+   */
   private async mayRead(recipient: Recipient, optionId: string, audience: ShareAudience | null): Promise<boolean> {
     const user: CurrentUser = { id: recipient.id, email: recipient.email, name: recipient.name, role: recipient.role };
-    if (audience !== null && !seesAudience(user, audience)) return false;
+    if (!seesAudience(user, audience ?? 'council')) return false;
     const [visible] = await this.db
       .select({ id: options.id })
       .from(options)
@@ -247,8 +250,9 @@ export class Notifications {
       return;
     }
     const { token, tokenHash } = newOneTimeToken();
-    await this.db.insert(unsubscribeTokens).values({ tokenHash, userId: recipient.id, kind, optionId });
     try {
+      // only a new-comment link names its option (it unfollows that one); the others turn a kind off
+      await this.db.insert(unsubscribeTokens).values({ tokenHash, userId: recipient.id, kind, optionId: kind === 'newComment' ? optionId : null });
       await mailer.send(build(token));
     } catch (error) {
       this.log(`${kind} notice to ${recipient.email} not sent: ${error instanceof Error ? error.message : String(error)}`);

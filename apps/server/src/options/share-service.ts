@@ -9,6 +9,7 @@ import { RequestError } from '../http/errors';
 import type { Notifications } from '../notifications/notification-service';
 import type { OptionService } from './option-service';
 import { isUniqueViolation } from './unique-violation';
+import { AUDIENCE_WORDS } from './audience-words';
 
 /**
  * Sharing an option for council review or public comment, and withdrawing the share. A share shows
@@ -20,7 +21,6 @@ import { isUniqueViolation } from './unique-violation';
 
 type ShareBody = z.infer<typeof shareBodySchema>;
 
-const AUDIENCE_WORDS = { council: 'for council review', public: 'for public comment' } as const;
 
 export class ShareService {
   constructor(

@@ -1,4 +1,5 @@
 import type { BriefBand, ChartFigure, ChartShape } from '@seinework/contracts';
+import { FITNESS_PEAK_A as PEAK, robustnessOf as fitness } from '@seinework/network-analysis';
 import { ACCENT, axes, CURVE, frame, GRID, line, linear, MUTED, niceTicks, text, tickText } from './chart-frame';
 
 /**
@@ -16,8 +17,6 @@ export interface PlacedPoint {
   baseline?: boolean;
 }
 
-const PEAK = 1 / Math.E;
-const fitness = (a: number) => (a <= 0 ? 0 : -a * Math.log(a));
 const POINT_COLOURS = [ACCENT, '#6750a4', '#386a20', '#8c1d18', '#00538a', '#7d5260'];
 
 export function fitnessChart(points: readonly PlacedPoint[], width = 500, height = 250): ChartFigure {
