@@ -94,6 +94,10 @@ export class DiscussionService {
     if (body.anchor) await this.checkAnchor(share.runId, body.anchor);
     const id = randomUUID();
     await this.db.transaction(async (tx) => {
+      // the share as it is now, held until the comment is stored: a withdrawal or a closing a moment ago wins
+      const [current] = await tx.select().from(shares).where(and(eq(shares.id, share.id), isNull(shares.withdrawnAt))).for('share');
+      if (!current) throw new RequestError(403, 'This option is no longer shared: the discussion is closed');
+      this.refuseUnlessOpen(current);
       await tx.insert(comments).values({ id, optionId, shareId: share.id, parentId, authorId: user.id, text: body.text, anchor: body.anchor ?? null });
       // posting follows the discussion
       await tx.insert(follows).values({ optionId, userId: user.id }).onConflictDoNothing();
@@ -269,8 +273,10 @@ export class DiscussionService {
 
   private async itemById(user: CurrentUser, id: string): Promise<CommentItem> {
     const [found] = await this.listed(eq(comments.id, id));
-    const active = await this.sharesOf(user, found!.comment.optionId);
-    return this.item(user, found!, active);
+    // gone between storing and reading back (its option deleted in between)
+    if (!found) throw new RequestError(404, 'No such comment');
+    const active = await this.sharesOf(user, found.comment.optionId);
+    return this.item(user, found, active);
   }
 
   private async isFollowing(user: CurrentUser, optionId: string): Promise<boolean> {
