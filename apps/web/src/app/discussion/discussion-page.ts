@@ -14,6 +14,7 @@ import { CommentCard } from './comment-card';
 import { CommentForm, type CommentDraft } from './comment-form';
 import { DiscussionStore } from './discussion-store';
 import { HideDialog } from './hide-dialog';
+import { sharedRunOf } from '../options/shared-run';
 
 /**
  * `/discussions/:optionId`: the discussion of one shared option — the comments on the record,
@@ -41,12 +42,7 @@ export class DiscussionPage {
   protected readonly replyingTo = signal<CommentItem | null>(null);
   protected readonly choices = computed(() => anchorChoices(this.store.web()));
   /** The run the reader's discussion shows (its share's), else any share's, else the newest run: comment anchors link into its result page. */
-  protected readonly runId = computed(() => {
-    const option = this.store.option();
-    const audience = this.store.discussion()?.audience;
-    const shown = option?.shares.find((s) => s.audience === audience && s.runId) ?? option?.shares.find((s) => s.runId);
-    return shown?.runId ?? option?.latestRun?.id ?? null;
-  });
+  protected readonly runId = computed(() => sharedRunOf(this.store.option(), this.store.discussion()?.audience) ?? this.store.option()?.latestRun?.id ?? null);
   protected readonly canPost = computed(() => this.session.can('comments.post') && (this.store.discussion()?.open ?? false));
   protected readonly canModerate = computed(() => this.session.can('comments.moderate'));
   protected readonly publicShare = computed(() => this.store.option()?.shares.find((s) => s.audience === 'public') ?? null);

@@ -15,6 +15,7 @@ import { adjustmentInWords, RESPONSE_RULES } from './option-words';
 import { RunForm } from './run-form';
 import { RunStatusChip } from './run-status';
 import { SharePanel } from './share-panel';
+import { sharedRunOf } from './shared-run';
 
 /** One harvest option: what it does in words, its runs (the live one with its progress), sharing, duplicating and deleting. */
 @Component({
@@ -38,10 +39,7 @@ export class OptionPage {
   protected readonly adjustments = computed(() => (this.store.detail()?.option.adjustments ?? []).map((a) => adjustmentInWords(a, this.store.web())));
   protected readonly rule = computed(() => RESPONSE_RULES.find((r) => r.rule === this.store.detail()?.response));
   /** The run a brief is printed for: the one shared with the council or the public, else the latest finished one. */
-  protected readonly briefRun = computed(() => {
-    const shared = this.store.detail()?.shares.find((s) => s.runId)?.runId;
-    return shared ?? this.store.doneRuns()[0]?.id ?? null;
-  });
+  protected readonly briefRun = computed(() => sharedRunOf(this.store.detail()) ?? this.store.doneRuns()[0]?.id ?? null);
   protected readonly liveUnfinished = computed(() => {
     const run = this.store.liveRun();
     return run && !FINISHED.has(run.status) ? run : null;

@@ -1,4 +1,4 @@
-import type { Adjustment, OptionPreview, ResponseRule, Web } from '@seinework/contracts';
+import { INDICATOR_NAMES, type Adjustment, type OptionPreview, type ResponseRule, type Web } from '@seinework/contracts';
 
 /** How options read to a council member: each adjustment, the response rule and the indicators in words. */
 
@@ -57,12 +57,12 @@ type IndicatorKey = OptionPreview['indicators'][number]['key'];
  * whether they are in the web's flow unit, and whether they are shares (printed as per cent).
  */
 export const KEY_INDICATORS: readonly { key: IndicatorKey; label: string; inFlowUnit?: boolean; share?: boolean }[] = [
-  { key: 'totalCatch', label: 'Total catch', inFlowUnit: true },
-  { key: 'meanTrophicLevelOfCatch', label: 'Mean trophic level of the catch' },
-  { key: 'primaryProductionRequiredShare', label: 'Share of primary production the catch requires', share: true },
-  { key: 'relativeAscendency', label: 'Relative ascendency' },
-  { key: 'robustness', label: 'Robustness (fitness)' },
-  { key: 'finnCyclingIndex', label: 'Finn cycling index', share: true },
-  { key: 'totalSystemThroughflow', label: 'Total system throughflow', inFlowUnit: true },
-  { key: 'fishingInBalance', label: 'Fishing-in-Balance against the baseline' },
+  { key: 'totalCatch', label: INDICATOR_NAMES.totalCatch, inFlowUnit: true },
+  { key: 'meanTrophicLevelOfCatch', label: INDICATOR_NAMES.meanTrophicLevelOfCatch },
+  { key: 'primaryProductionRequiredShare', label: INDICATOR_NAMES.primaryProductionRequiredShare, share: true },
+  { key: 'relativeAscendency', label: INDICATOR_NAMES.relativeAscendency },
+  { key: 'robustness', label: INDICATOR_NAMES.robustness },
+  { key: 'finnCyclingIndex', label: INDICATOR_NAMES.finnCyclingIndex, share: true },
+  { key: 'totalSystemThroughflow', label: INDICATOR_NAMES.totalSystemThroughflow, inFlowUnit: true },
+  { key: 'fishingInBalance', label: `${INDICATOR_NAMES.fishingInBalance} against the baseline` },
 ];

@@ -7,6 +7,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { SessionStore } from '../auth/session-store';
+import { sharedRunOf } from '../options/shared-run';
 import { Caution } from '../shared/caution';
 import { CsvButton } from '../shared/csv-button';
 import { downloadXlsx } from '../shared/table-export';
@@ -110,7 +111,7 @@ export class ResultPage {
   }
 
   /** The run the option is shared with, whose discussion the comments belong to. */
-  protected readonly sharedRunId = computed(() => this.store.option()?.shares.find((s) => s.runId)?.runId ?? null);
+  protected readonly sharedRunId = computed(() => sharedRunOf(this.store.option()));
 
   protected jump(id: string): void {
     document.getElementById(id)?.scrollIntoView({ behavior: 'smooth', block: 'start' });
