@@ -2,7 +2,7 @@ import { computed, inject } from '@angular/core';
 import { HttpErrorResponse } from '@angular/common/http';
 import { patchState, signalStore, withComputed, withHooks, withMethods, withState } from '@ngrx/signals';
 import { rxMethod } from '@ngrx/signals/rxjs-interop';
-import { catchError, debounceTime, EMPTY, filter, firstValueFrom, map, of, pipe, switchMap, tap } from 'rxjs';
+import { catchError, EMPTY, firstValueFrom, map, of, pipe, switchMap, tap, timer } from 'rxjs';
 import type { AdjustmentProblem, OptionPreview, ResponseRule, StoredOptionBody, UncertaintySettings, Web } from '@seinework/contracts';
 import { errorMessage } from '../webs/request-error';
 import { newAdjustment, toDraft, toOptionBody, type AdjustmentDraft } from './adjustment-draft';
@@ -81,11 +81,15 @@ export const OptionFormStore = signalStore(
      * What the preview sends: the deterministic run needs neither purpose nor draws, so typing those
      * does not ask the engine again; an unnamed option is previewed under a placeholder name.
      */
-    previewBody: computed((): StoredOptionBody | null => {
-      const body = draft().body;
-      if (!web() || frozen() || !body) return null;
-      return { name: name().trim() || 'Untitled option', response: response(), adjustments: body.adjustments };
-    }),
+    previewBody: computed(
+      (): StoredOptionBody | null => {
+        const body = draft().body;
+        if (!web() || frozen() || !body) return null;
+        return { name: name().trim() || 'Untitled option', response: response(), adjustments: body.adjustments };
+      },
+      // a new object every time the draft changes: equal when it says the same, so that it asks nothing new
+      { equal: (a, b) => JSON.stringify(a) === JSON.stringify(b) },
+    ),
   })),
   withMethods((store, api = inject(OptionsApi)) => {
     const edit = (change: Partial<OptionFormState>) => patchState(store, { ...change, saveError: null, dirty: true });
@@ -134,17 +138,19 @@ export const OptionFormStore = signalStore(
           tap((body) => {
             if (!body) patchState(store, { problems: [], preview: null, checking: false, previewError: null });
           }),
-          debounceTime(PREVIEW_DELAY_MS),
-          filter((body): body is StoredOptionBody => body !== null),
-          tap(() => patchState(store, { checking: true, previewError: null })),
+          // each new body (null included) drops the pause and any answer still coming for the one before
           switchMap((body) =>
-            api.preview(store.webId()!, store.versionId()!, body).pipe(
-              map((preview) => ({ preview, problems: [] as AdjustmentProblem[], previewError: null })),
-              catchError((error: unknown) => {
-                const problems = adjustmentProblemsOf(error);
-                return of(problems ? { preview: null, problems, previewError: null } : { preview: null, problems: [], previewError: errorMessage(error) });
-              }),
-            ),
+            body === null
+              ? EMPTY
+              : timer(PREVIEW_DELAY_MS).pipe(
+                  tap(() => patchState(store, { checking: true, previewError: null })),
+                  switchMap(() => api.preview(store.webId()!, store.versionId()!, body)),
+                  map((preview) => ({ preview, problems: [] as AdjustmentProblem[], previewError: null })),
+                  catchError((error: unknown) => {
+                    const problems = adjustmentProblemsOf(error);
+                    return of(problems ? { preview: null, problems, previewError: null } : { preview: null, problems: [], previewError: errorMessage(error) });
+                  }),
+                ),
           ),
           tap((answer) => patchState(store, { ...answer, checking: false })),
           catchError(() => EMPTY),

@@ -107,6 +107,25 @@ describe('OptionForm', () => {
     expect(fixture.nativeElement.querySelector('sw-option-preview')).toBeNull();
   });
 
+  it('does not ask the engine again for typing what the preview does not use (purpose, draws), and drops an answer the form has moved past', async () => {
+    store.setName('Purpose only');
+    store.changeAdjustment(0, { type: 'scale-catch', fleet: 'Seine', compartment: 'f', percent: -30, amount: null });
+    await pause();
+    const first = http.expectOne(PREVIEW_URL);
+    store.setPurpose('Why the council should look at it');
+    store.setUncertainty({ draws: 2000 });
+    await pause();
+    http.expectNone(PREVIEW_URL);
+    // the adjustment is left incomplete while the answer is still coming: that answer is not shown
+    store.changeAdjustment(0, { type: 'scale-catch', fleet: 'Seine', compartment: 'f', percent: null, amount: null });
+    fixture.detectChanges();
+    expect(first.cancelled).toBe(true);
+    await pause();
+    http.expectNone(PREVIEW_URL);
+    expect(store.preview()).toBeNull();
+    expect(store.checking()).toBe(false);
+  });
+
   it('asks the engine once after typing pauses, and shows its preview', async () => {
     store.changeAdjustment(0, { type: 'scale-catch', fleet: 'Seine', compartment: 'f', percent: -10, amount: null });
     store.changeAdjustment(0, { type: 'scale-catch', fleet: 'Seine', compartment: 'f', percent: -20, amount: null });
