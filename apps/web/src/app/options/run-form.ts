@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, effect, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, input, output, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -42,6 +42,10 @@ import type { RunSettings } from './options-api';
 })
 export class RunForm {
   readonly defaults = input<UncertaintySettings | undefined>();
+  /** The option's own settings by value: the option read again (after a share) is not new settings, and leaves what was typed. */
+  private readonly settings = computed(() => this.defaults(), {
+    equal: (a, b) => a?.draws === b?.draws && a?.cv === b?.cv && a?.seed === b?.seed,
+  });
   readonly disabled = input(false);
   readonly started = output<RunSettings>();
 
@@ -53,7 +57,7 @@ export class RunForm {
 
   constructor() {
     effect(() => {
-      const defaults = this.defaults();
+      const defaults = this.settings();
       if (!defaults) return;
       this.draws.set(Math.min(defaults.draws, MAX_RUN_DRAWS));
       this.cv.set(defaults.cv);
