@@ -104,6 +104,8 @@ test('build a harvest option: refused adjustment, fix, preview, save, run and op
   await shot(page, 'option-delete-confirm');
   await confirm.getByRole('button', { name: 'Delete' }).click();
   await expect(page.getByRole('heading', { level: 1, name: DEMO_WEB })).toBeVisible();
+  // once the list has loaded (the option itself is in it), the copy is not
+  await expect(options.getByRole('link', { name: OPTION, exact: true })).toBeVisible();
   await expect(options.getByRole('link', { name: `${OPTION} (copy)` })).toHaveCount(0);
   await options.getByRole('link', { name: OPTION, exact: true }).click();
   await expect(page.getByRole('heading', { level: 1, name: OPTION })).toBeVisible();

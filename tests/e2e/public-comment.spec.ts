@@ -117,6 +117,8 @@ test('an option opened for public comment: comment on an indicator, the follower
   const crumbs = page.getByRole('navigation', { name: 'Where you are' });
   await expect(crumbs.getByRole('link', { name: 'Discussions' })).toBeVisible();
   await expect(crumbs.getByRole('link', { name: 'Webs' })).toHaveCount(0);
+  // once the baseline is read (its name in words), no refusal is shown: the runs list a stakeholder may not ask for is not asked
+  await expect(page.locator('p.baseline')).toContainText(/Stands on\s+version \d+ of /);
   await expect(page.getByRole('alert')).toHaveCount(0);
   await shot(page, 'public-comment-option-stakeholder');
   await page.goBack();
