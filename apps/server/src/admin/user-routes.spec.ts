@@ -42,7 +42,7 @@ describe('PATCH /api/admin/users/:id', () => {
     expect(response.body).toMatchObject({ id, role: 'analyst', active: true });
     const staff = await t.signInAs('staff');
     expect((await staff.get('/api/me')).body.role).toBe('analyst');
-    const [event] = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.updated'));
+    const [event] = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.updated')).orderBy(auditEvents.id);
     expect(event).toMatchObject({ actorId: await idOf(demoEmail('admin')), subject: `user:${id}` });
     expect(event.detail).toContain('staff → analyst');
   });
@@ -114,7 +114,7 @@ describe('50 concurrent writes', () => {
     expect(answers.map((a) => a.status)).toEqual(ids.map(() => 200));
     const stored = await t.database.db.select().from(sessions);
     expect(new Set(stored.map((s) => s.userId))).toEqual(new Set([...ids, await idOf(demoEmail('admin'))]));
-    const signedIn = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.signed-in'));
+    const signedIn = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.signed-in')).orderBy(auditEvents.id);
     expect(signedIn).toHaveLength(51);
   });
 });

@@ -48,7 +48,7 @@ describe('sign-in', () => {
     expect(out.status).toBe(204);
     expect((await agent.get('/api/me')).status).toBe(401);
     expect(await t.database.db.select().from(sessions).where(eq(sessions.userId, me.id))).toHaveLength(0);
-    const audit = await t.database.db.select().from(auditEvents).where(eq(auditEvents.actorId, me.id));
+    const audit = await t.database.db.select().from(auditEvents).where(eq(auditEvents.actorId, me.id)).orderBy(auditEvents.id);
     expect(audit.map((e) => e.action)).toEqual(['auth.signed-in', 'auth.signed-out']);
   });
 });
@@ -89,7 +89,7 @@ describe('change password', () => {
     expect((await elsewhere.get('/api/me')).status).toBe(401);
     expect((await t.anonymous().post('/api/auth/sign-in').send({ email: demoEmail('analyst'), password: DEMO_PASSWORD })).status).toBe(401);
     expect((await t.anonymous().post('/api/auth/sign-in').send({ email: demoEmail('analyst'), password: 'a much longer new password' })).status).toBe(200);
-    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.password-changed'));
+    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.password-changed')).orderBy(auditEvents.id);
     expect(events).toHaveLength(1);
   });
 

@@ -122,7 +122,7 @@ describe('invitations', () => {
     expect(preview.status).toBe(410);
     expect(preview.body.error).toMatch(/withdrawn/);
     expect((await admin.get('/api/admin/invitations')).body).toEqual({ items: [], total: 0 });
-    const revoked = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'invitation.revoked'));
+    const revoked = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'invitation.revoked')).orderBy(auditEvents.id);
     expect(revoked).toHaveLength(1);
     expect(revoked[0].subject).toBe(`invitation:${id}`);
   });
@@ -204,7 +204,7 @@ describe('when the mail server is down', () => {
       expect(response.body.error).toMatch(/saved but its e-mail could not be sent/);
       const list = await brokenAdmin.get('/api/admin/invitations');
       expect(list.body.items).toEqual([expect.objectContaining({ email: 'unlucky@example.org', role: 'analyst', acceptedAt: null })]);
-      const failures = await broken.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'invitation.not-delivered'));
+      const failures = await broken.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'invitation.not-delivered')).orderBy(auditEvents.id);
       expect(failures).toHaveLength(1);
     } finally {
       await broken.close();

@@ -99,7 +99,7 @@ describe('password reset', () => {
     await resetToken(demoEmail('analyst'));
     const outbox = await waitForOutbox(admin, 4);
     expect(outbox.items.filter((message) => message.to === demoEmail('council'))).toHaveLength(3);
-    const throttled = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.password-reset-throttled'));
+    const throttled = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.password-reset-throttled')).orderBy(auditEvents.id);
     expect(throttled).toHaveLength(2);
   });
 

@@ -40,7 +40,7 @@ describe('sign-in rate limits', () => {
     expect((await signIn(demoEmail('council'), DEMO_PASSWORD)).status).toBe(200);
     now = new Date('2026-03-01T09:16:00Z');
     expect((await signIn(demoEmail('analyst'), DEMO_PASSWORD)).status).toBe(200);
-    const refused = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.sign-in-refused'));
+    const refused = await t.database.db.select().from(auditEvents).where(eq(auditEvents.action, 'auth.sign-in-refused')).orderBy(auditEvents.id);
     expect(refused).toHaveLength(1);
   });
 

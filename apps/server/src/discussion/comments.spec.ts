@@ -17,7 +17,7 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(() => t.close());
 
-const auditOf = async (subject: string) => (await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, subject))).map((e) => e.action);
+const auditOf = async (subject: string) => (await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, subject)).orderBy(auditEvents.id)).map((e) => e.action);
 const commentsUrl = (shared: SharedOption) => `/api/options/${shared.optionId}/comments`;
 
 describe('posting', () => {
@@ -183,7 +183,7 @@ describe('hiding', () => {
     expect(((await council.get(commentsUrl(shared))).body as CommentPage).total).toBe(1);
     expect((await stakeholder.patch(`/api/comments/${posted.body.id}`).send({ text: 'Something kind' })).status).toBe(409);
 
-    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `comment:${posted.body.id}`));
+    const events = await t.database.db.select().from(auditEvents).where(eq(auditEvents.subject, `comment:${posted.body.id}`)).orderBy(auditEvents.id);
     expect(events.map((e) => e.action)).toEqual(['comment.posted', 'comment.hidden']);
     expect(events[1]!.detail).toContain('Personal remarks about a named fisher');
     expect(events[1]!.actorId).toBe(await userId(t.database.db, 'staff'));

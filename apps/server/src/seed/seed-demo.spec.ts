@@ -25,7 +25,7 @@ describe('seedDemo', () => {
     }
     for (const role of ROLES) expect(stored.find((u) => u.email === demoEmail(role))!.role).toBe(role);
     expect(stored.filter((u) => u.name.endsWith('(demo)')).map((u) => u.role)).toEqual(['stakeholder', 'stakeholder', 'stakeholder']);
-    expect(await database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.created'))).toHaveLength(everyone.length);
+    expect(await database.db.select().from(auditEvents).where(eq(auditEvents.action, 'user.created')).orderBy(auditEvents.id)).toHaveLength(everyone.length);
     // the demo web: created and published by the demo analyst
     expect((await database.db.select().from(auditEvents).where(like(auditEvents.action, 'web.%')).orderBy(auditEvents.id)).map((e) => e.action)).toEqual(['web.created', 'web.published']);
     expect(await seedDemo(database, 'development')).toEqual({ seeded: false });
